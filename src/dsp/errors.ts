@@ -1,0 +1,43 @@
+/**
+ * Typed errors of the DSP engine. Messages are written for the person at the form: they name the
+ * parameter, the value given and what is allowed.
+ */
+export type DspErrorCode =
+  /** A configuration value is out of range or inconsistent, e.g. "numRb 120 exceeds the 100 RB grid of LTE 20 MHz". */
+  | 'INVALID_CONFIG'
+  /** A transform or block size the engine cannot handle, e.g. a DFT-spreading size 12·7 that TS 36.211 §5.3.3 forbids. */
+  | 'UNSUPPORTED_SIZE'
+  /** A caller-allocated buffer has the wrong length, e.g. an output of 2×2047 values for a 2048-point FFT. */
+  | 'LENGTH_MISMATCH'
+  /** An input file is malformed: truncated data, bad JSON, wrong datatype, checksum mismatch, NaN samples. */
+  | 'INVALID_FILE'
+  /** A broken invariant inside the engine; a bug, never the user's fault. */
+  | 'INTERNAL';
+
+export class DspError extends Error {
+  readonly code: DspErrorCode;
+  readonly details: Record<string, unknown> | undefined;
+
+  constructor(code: DspErrorCode, message: string, details?: Record<string, unknown>) {
+    super(message);
+    this.name = 'DspError';
+    this.code = code;
+    this.details = details;
+  }
+}
+
+/** True when `value` is a DspError (also after a structured clone lost the class, by duck typing on code). */
+export function isDspError(value: unknown): value is DspError {
+  return value instanceof DspError;
+}
+
+/** Throws LENGTH_MISMATCH unless `buffer.length === expected`. `what` names the buffer in the message. */
+export function assertLength(buffer: { length: number }, expected: number, what: string): void {
+  if (buffer.length !== expected) {
+    throw new DspError(
+      'LENGTH_MISMATCH',
+      `${what} has ${buffer.length} values but ${expected} are required.`,
+      { actual: buffer.length, expected },
+    );
+  }
+}
