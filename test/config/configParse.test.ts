@@ -61,7 +61,7 @@ describe('waveform configuration', () => {
     expect(errorOf({ link: 'downlink', waveform: 'dft-s-ofdm' }).message).toMatch(/uplink waveform/);
     expect(errorOf({ waveform: 'ofdm', modulation: 'pi/2-bpsk' }).message).toMatch(/TS 38.211 §6.3.1.2/);
     expect(errorOf({ standard: 'nr', bandwidthMHz: 100, subcarrierSpacingKHz: 15 }).message).toMatch(/Table 5.3.2-1/);
-    expect(errorOf({ mapping: 'interleaved', interleaveFactor: 5 }).message).toMatch(/allowed factors/);
+    expect(errorOf({ mapping: 'interleaved', interleaveFactor: 7 }).message).toMatch(/allowed factors/);
   });
 
   it('reports bad JSON with the source named', () => {
