@@ -7,11 +7,11 @@
  * Imports are read with the TypeScript parser, so `import type`, `export ... from`,
  * dynamic `import()` and `require()` are all seen.
  */
-import { readdirSync, readFileSync } from "node:fs";
-import { builtinModules } from "node:module";
-import path from "node:path";
-import { fileURLToPath, pathToFileURL } from "node:url";
-import ts from "typescript";
+import { readdirSync, readFileSync } from 'node:fs';
+import { builtinModules } from 'node:module';
+import path from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import ts from 'typescript';
 
 /** One layer's allowed imports. Paths are repository-relative, posix style. */
 export interface LayerRule {
@@ -21,36 +21,45 @@ export interface LayerRule {
   /** Layers (or single modules, without extension) this one may import from with `import type` only. */
   typeOnlyFrom: readonly string[];
   /** Packages allowed; "any" means every non-Node package. */
-  packages: readonly string[] | "any";
+  packages: readonly string[] | 'any';
   /** Node built-ins (node:fs ...) allowed. */
   nodeBuiltins: boolean;
 }
 
 export const layerRules: readonly LayerRule[] = [
-  { layer: "src/dsp", mayImport: [], typeOnlyFrom: ["src/config"], packages: ["fft.js"], nodeBuiltins: false },
-  { layer: "src/config", mayImport: ["src/dsp"], typeOnlyFrom: [], packages: "any", nodeBuiltins: false },
-  { layer: "src/io", mayImport: ["src/dsp", "src/config"], typeOnlyFrom: [], packages: "any", nodeBuiltins: false },
+  { layer: 'src/dsp', mayImport: [], typeOnlyFrom: ['src/config'], packages: ['fft.js'], nodeBuiltins: false },
+  { layer: 'src/config', mayImport: ['src/dsp'], typeOnlyFrom: [], packages: 'any', nodeBuiltins: false },
+  { layer: 'src/io', mayImport: ['src/dsp', 'src/config'], typeOnlyFrom: [], packages: 'any', nodeBuiltins: false },
   {
-    layer: "src/worker",
-    mayImport: ["src/dsp", "src/config", "src/io"],
+    layer: 'src/worker',
+    mayImport: ['src/dsp', 'src/config', 'src/io'],
     typeOnlyFrom: [],
-    packages: "any",
+    packages: 'any',
     nodeBuiltins: false,
   },
-  { layer: "src/scenarios", mayImport: [], typeOnlyFrom: ["src/config"], packages: [], nodeBuiltins: false },
+  { layer: 'src/scenarios', mayImport: [], typeOnlyFrom: ['src/config'], packages: [], nodeBuiltins: false },
   {
-    // The main thread runs no DSP: values from src/dsp only for DspError; types from anywhere in src/dsp.
-    layer: "src/ui",
-    mayImport: ["src/worker", "src/io", "src/config", "src/scenarios", "src/dsp/errors"],
-    typeOnlyFrom: ["src/dsp"],
-    packages: "any",
+    // The main thread runs no DSP: values from src/dsp only for DspError and the standards' numerology
+    // tables (plain data, for the form's suggestions); types from anywhere in src/dsp.
+    layer: 'src/ui',
+    mayImport: [
+      'src/worker',
+      'src/io',
+      'src/config',
+      'src/scenarios',
+      'src/dsp/errors',
+      'src/dsp/numerology/lteNumerology',
+      'src/dsp/numerology/nrNumerology',
+    ],
+    typeOnlyFrom: ['src/dsp'],
+    packages: 'any',
     nodeBuiltins: false,
   },
   {
-    layer: "src/cli",
-    mayImport: ["src/dsp", "src/config", "src/io", "src/scenarios"],
+    layer: 'src/cli',
+    mayImport: ['src/dsp', 'src/config', 'src/io', 'src/scenarios'],
     typeOnlyFrom: [],
-    packages: "any",
+    packages: 'any',
     nodeBuiltins: true,
   },
 ];
@@ -99,7 +108,7 @@ function isTypeOnlyExport(node: ts.ExportDeclaration): boolean {
 
 /** Every module specifier a file refers to, with whether the reference is erased at compile time. */
 export function listImports(file: SourceFileText): ImportSite[] {
-  const kind = file.path.endsWith(".tsx") ? ts.ScriptKind.TSX : ts.ScriptKind.TS;
+  const kind = file.path.endsWith('.tsx') ? ts.ScriptKind.TSX : ts.ScriptKind.TS;
   const source = ts.createSourceFile(file.path, file.text, ts.ScriptTarget.Latest, true, kind);
   const sites: ImportSite[] = [];
   const add = (literal: ts.Node, typeOnly: boolean): void => {
@@ -118,7 +127,7 @@ export function listImports(file: SourceFileText): ImportSite[] {
       add(node.argument.literal, true);
     } else if (ts.isCallExpression(node) && node.arguments.length > 0) {
       const isDynamicImport = node.expression.kind === ts.SyntaxKind.ImportKeyword;
-      const isRequire = ts.isIdentifier(node.expression) && node.expression.text === "require";
+      const isRequire = ts.isIdentifier(node.expression) && node.expression.text === 'require';
       const first = node.arguments[0];
       if ((isDynamicImport || isRequire) && first !== undefined) add(first, false);
     }
@@ -133,7 +142,7 @@ function isInside(target: string, area: string): boolean {
 }
 
 function stripExtension(target: string): string {
-  return target.replace(/\.(ts|tsx|js|jsx|mjs|cjs|json)$/, "");
+  return target.replace(/\.(ts|tsx|js|jsx|mjs|cjs|json)$/, '');
 }
 
 function ruleFor(filePath: string): LayerRule | undefined {
@@ -142,21 +151,21 @@ function ruleFor(filePath: string): LayerRule | undefined {
 
 function checkSite(filePath: string, rule: LayerRule, site: ImportSite): string | undefined {
   const { specifier } = site;
-  if (specifier.startsWith(".")) {
+  if (specifier.startsWith('.')) {
     const target = stripExtension(path.posix.normalize(path.posix.join(path.posix.dirname(filePath), specifier)));
     if (isInside(target, rule.layer) || rule.mayImport.some((area) => isInside(target, area))) return undefined;
     if (site.typeOnly && rule.typeOnlyFrom.some((area) => isInside(target, area))) return undefined;
-    const typeOnlyNote = rule.typeOnlyFrom.length > 0 ? `; \`import type\` also from ${rule.typeOnlyFrom.join(", ")}` : "";
-    const allowed = [rule.layer, ...rule.mayImport].join(", ");
+    const typeOnlyNote = rule.typeOnlyFrom.length > 0 ? `; \`import type\` also from ${rule.typeOnlyFrom.join(', ')}` : '';
+    const allowed = [rule.layer, ...rule.mayImport].join(', ');
     return `${rule.layer} may import only from ${allowed}${typeOnlyNote}; "${specifier}" resolves to ${target}`;
   }
-  const bare = specifier.startsWith("node:") ? specifier.slice(5) : specifier;
-  const packageName = bare.startsWith("@") ? bare.split("/").slice(0, 2).join("/") : (bare.split("/")[0] ?? bare);
-  if (specifier.startsWith("node:") || nodeBuiltinNames.has(packageName)) {
+  const bare = specifier.startsWith('node:') ? specifier.slice(5) : specifier;
+  const packageName = bare.startsWith('@') ? bare.split('/').slice(0, 2).join('/') : (bare.split('/')[0] ?? bare);
+  if (specifier.startsWith('node:') || nodeBuiltinNames.has(packageName)) {
     return rule.nodeBuiltins ? undefined : `${rule.layer} must not use Node built-ins ("${specifier}"); only src/cli may`;
   }
-  if (rule.packages === "any" || rule.packages.includes(packageName)) return undefined;
-  const allowedPackages = rule.packages.length > 0 ? rule.packages.join(", ") : "no packages";
+  if (rule.packages === 'any' || rule.packages.includes(packageName)) return undefined;
+  const allowedPackages = rule.packages.length > 0 ? rule.packages.join(', ') : 'no packages';
   return `${rule.layer} may import ${allowedPackages}; "${specifier}" is not allowed`;
 }
 
@@ -175,19 +184,19 @@ export function findBoundaryViolations(files: readonly SourceFileText[]): Bounda
 }
 
 function readSourceTree(rootDir: string): SourceFileText[] {
-  const srcDir = path.join(rootDir, "src");
-  const entries = readdirSync(srcDir, { recursive: true, encoding: "utf8" });
+  const srcDir = path.join(rootDir, 'src');
+  const entries = readdirSync(srcDir, { recursive: true, encoding: 'utf8' });
   return entries
     .filter((entry) => /\.(ts|tsx)$/.test(entry))
     .sort()
     .map((entry) => {
-      const relative = path.posix.join("src", entry.split(path.sep).join("/"));
-      return { path: relative, text: readFileSync(path.join(srcDir, entry), "utf8") };
+      const relative = path.posix.join('src', entry.split(path.sep).join('/'));
+      return { path: relative, text: readFileSync(path.join(srcDir, entry), 'utf8') };
     });
 }
 
 function main(): void {
-  const rootDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+  const rootDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
   const files = readSourceTree(rootDir);
   const violations = findBoundaryViolations(files);
   for (const v of violations) console.error(`${v.path}:${v.line}: ${v.message}`);

@@ -3,16 +3,16 @@
 // dependencies, so it still runs when `npm ci` failed. A missing report means that runner never
 // got to run (an earlier step failed): it counts as one failure, so the line never looks clean.
 // Usage: node scripts/ciSummary.mjs [reportsDir]   Exit code: 0 when something ran and nothing failed.
-import { existsSync, readFileSync } from "node:fs";
-import path from "node:path";
+import { existsSync, readFileSync } from 'node:fs';
+import path from 'node:path';
 
-const reportsDir = process.argv[2] ?? "reports";
+const reportsDir = process.argv[2] ?? 'reports';
 
 function readJson(name) {
   const file = path.join(reportsDir, name);
   if (!existsSync(file)) return { found: false, data: undefined };
   try {
-    return { found: true, data: JSON.parse(readFileSync(file, "utf8")) };
+    return { found: true, data: JSON.parse(readFileSync(file, 'utf8')) };
   } catch (error) {
     return { found: true, data: undefined, error: `${file} is not valid JSON (${error.message})` };
   }
@@ -21,7 +21,7 @@ function readJson(name) {
 /** Vitest's jest-style report; a file that failed to load has status "failed" and no assertions. */
 function countVitest(report) {
   const brokenFiles = (report.testResults ?? []).filter(
-    (file) => file.status === "failed" && (file.assertionResults ?? []).length === 0,
+    (file) => file.status === 'failed' && (file.assertionResults ?? []).length === 0,
   ).length;
   return { passed: report.numPassedTests ?? 0, failed: (report.numFailedTests ?? 0) + brokenFiles };
 }
@@ -36,8 +36,8 @@ function countPlaywright(report) {
 let passed = 0;
 let failed = 0;
 for (const [name, count, label] of [
-  ["vitest.json", countVitest, "vitest"],
-  ["playwright.json", countPlaywright, "playwright"],
+  ['vitest.json', countVitest, 'vitest'],
+  ['playwright.json', countPlaywright, 'playwright'],
 ]) {
   const { found, data, error } = readJson(name);
   if (error) {

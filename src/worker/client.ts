@@ -10,8 +10,8 @@
  * - A worker that crashes is terminated and replaced; pending requests reject with an INTERNAL
  *   DspError that says so, and `onRestart` reports it to the page.
  */
-import type { WaveformConfig } from "../config/schema";
-import { DspError } from "../dsp/errors";
+import type { WaveformConfig } from '../config/schema';
+import { DspError } from '../dsp/errors';
 import {
   isWorkerResponse,
   PROTOCOL_VERSION,
@@ -20,7 +20,7 @@ import {
   type EngineWaveform,
   type GeneratedResponse,
   type WorkerRequest,
-} from "./protocol";
+} from './protocol';
 
 /** The part of a Worker the client uses (a test passes a fake). */
 export interface WorkerLike {
@@ -63,7 +63,7 @@ export interface EngineClient {
 
 /** A request overtaken by a newer one (or by dispose); not a failure to show. */
 export class SupersededError extends Error {
-  override readonly name = "SupersededError";
+  override readonly name = 'SupersededError';
   constructor(readonly requestId: number) {
     super(`Engine request ${requestId} was superseded by a newer request.`);
   }
@@ -74,7 +74,7 @@ export function isSuperseded(error: unknown): error is SupersededError {
 }
 
 function createModuleWorker(): WorkerLike {
-  return new Worker(new URL("./engine.worker.ts", import.meta.url), { type: "module", name: "crestline-engine" });
+  return new Worker(new URL('./engine.worker.ts', import.meta.url), { type: 'module', name: 'crestline-engine' });
 }
 
 /** Views the transferred buffers as the typed arrays EngineWaveform declares. */
@@ -112,22 +112,22 @@ export function createEngineClient(options: EngineClientOptions = {}): EngineCli
 
   const settle = (data: unknown): void => {
     if (!isWorkerResponse(data)) {
-      rejectAll(() => new DspError("INTERNAL", "The engine worker sent a message the page does not understand."));
+      rejectAll(() => new DspError('INTERNAL', 'The engine worker sent a message the page does not understand.'));
       return;
     }
     if (data.protocolVersion !== PROTOCOL_VERSION) {
       const message = `The engine worker speaks protocol v${String(data.protocolVersion)} but the page speaks v${PROTOCOL_VERSION}; reload the page.`;
-      rejectAll(() => new DspError("INTERNAL", message));
+      rejectAll(() => new DspError('INTERNAL', message));
       return;
     }
-    if (data.type === "ready") {
+    if (data.type === 'ready') {
       workerReady = true;
       return;
     }
     const entry = pending.get(data.id);
     if (entry === undefined) return; // superseded: already settled
     pending.delete(data.id);
-    if (data.type === "error") {
+    if (data.type === 'error') {
       entry.reject(new DspError(data.code, data.message, data.details));
       return;
     }
@@ -143,7 +143,7 @@ export function createEngineClient(options: EngineClientOptions = {}): EngineCli
     const failedRequestIds = rejectAll(
       (id) =>
         new DspError(
-          "INTERNAL",
+          'INTERNAL',
           `The engine worker crashed (${reason}) while working on request ${id}. A fresh worker has been started; run the request again.`,
         ),
     );
@@ -159,10 +159,10 @@ export function createEngineClient(options: EngineClientOptions = {}): EngineCli
     created.onmessage = (event) => settle(event.data);
     created.onerror = (event) => {
       event.preventDefault?.();
-      handleCrash(event.message || "the worker script failed or threw outside a request");
+      handleCrash(event.message || 'the worker script failed or threw outside a request');
     };
     created.onmessageerror = () =>
-      rejectAll(() => new DspError("INTERNAL", "A message from the engine worker could not be read (structured clone failed)."));
+      rejectAll(() => new DspError('INTERNAL', 'A message from the engine worker could not be read (structured clone failed).'));
     worker = created;
     return created;
   }
@@ -173,18 +173,23 @@ export function createEngineClient(options: EngineClientOptions = {}): EngineCli
     if (previous !== undefined) {
       pending.delete(newestGenerateId);
       previous.reject(new SupersededError(newestGenerateId));
-      target.postMessage({ type: "cancel", id: nextId++, protocolVersion: PROTOCOL_VERSION, targetId: newestGenerateId }, []);
+      target.postMessage({ type: 'cancel', id: nextId++, protocolVersion: PROTOCOL_VERSION, targetId: newestGenerateId }, []);
     }
     const id = nextId++;
     newestGenerateId = id;
     return new Promise<EngineResult>((resolve, reject) => {
       pending.set(id, { resolve, reject });
       try {
-        target.postMessage({ type: "generate", id, protocolVersion: PROTOCOL_VERSION, config }, []);
+        target.postMessage({ type: 'generate', id, protocolVersion: PROTOCOL_VERSION, config }, []);
       } catch (error) {
         pending.delete(id);
         const reason = error instanceof Error ? error.message : String(error);
-        reject(new DspError("INVALID_CONFIG", `The configuration could not be sent to the engine: it must be plain JSON data (${reason}).`));
+        reject(
+          new DspError(
+            'INVALID_CONFIG',
+            `The configuration could not be sent to the engine: it must be plain JSON data (${reason}).`,
+          ),
+        );
       }
     });
   };

@@ -4,8 +4,8 @@
  * engineDispatch.ts (testable under Node); this file only wires it to the worker's global scope.
  * Started by client.ts with `new Worker(new URL("./engine.worker.ts", import.meta.url), { type: "module" })`.
  */
-import { createEngineDispatcher } from "./engineDispatch";
-import { PROTOCOL_VERSION, READY_ID, type ReadyResponse } from "./protocol";
+import { createEngineDispatcher } from './engineDispatch';
+import { PROTOCOL_VERSION, READY_ID, type ReadyResponse } from './protocol';
 
 declare const self: DedicatedWorkerGlobalScope;
 
@@ -17,5 +17,5 @@ const dispatch = createEngineDispatcher({
 
 self.onmessage = (event: MessageEvent<unknown>) => dispatch(event.data);
 
-const ready: ReadyResponse = { type: "ready", id: READY_ID, protocolVersion: PROTOCOL_VERSION };
+const ready: ReadyResponse = { type: 'ready', id: READY_ID, protocolVersion: PROTOCOL_VERSION };
 self.postMessage(ready);

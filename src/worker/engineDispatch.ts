@@ -7,10 +7,10 @@
  * request that a newer one has overtaken, or that was cancelled, is dropped unanswered (the client
  * has already settled it).
  */
-import { parseWaveformConfig } from "../config/configParse";
-import { DspError } from "../dsp/errors";
-import { generateWaveform, type GeneratedWaveform } from "../dsp/waveform/waveformGenerator";
-import type { WaveformPlan } from "../dsp/waveform/waveformPlan";
+import { parseWaveformConfig } from '../config/configParse';
+import { DspError } from '../dsp/errors';
+import { generateWaveform, type GeneratedWaveform } from '../dsp/waveform/waveformGenerator';
+import type { WaveformPlan } from '../dsp/waveform/waveformPlan';
 import {
   isWorkerRequest,
   PROTOCOL_VERSION,
@@ -22,7 +22,7 @@ import {
   type WaveformMeta,
   type WaveformPlanSummary,
   type WorkerResponse,
-} from "./protocol";
+} from './protocol';
 
 export interface EngineDispatchHost {
   /** Posts a response, moving the listed buffers. */
@@ -48,16 +48,22 @@ function toOwnBuffer(view: ArrayBufferView, alreadyMoved: Set<ArrayBufferLike>):
 
 export function errorResponse(id: number, error: unknown): ErrorResponse {
   if (error instanceof DspError) {
-    const response: ErrorResponse = { type: "error", id, protocolVersion: PROTOCOL_VERSION, code: error.code, message: error.message };
+    const response: ErrorResponse = {
+      type: 'error',
+      id,
+      protocolVersion: PROTOCOL_VERSION,
+      code: error.code,
+      message: error.message,
+    };
     if (error.details !== undefined) response.details = error.details;
     return response;
   }
   const reason = error instanceof Error ? `${error.name}: ${error.message}` : String(error);
   return {
-    type: "error",
+    type: 'error',
     id,
     protocolVersion: PROTOCOL_VERSION,
-    code: "INTERNAL",
+    code: 'INTERNAL',
     message: `The engine failed unexpectedly (${reason}). This is a bug in Crestline; please report it with the configuration.`,
   };
 }
@@ -101,7 +107,7 @@ function runGenerate(request: GenerateRequest, host: EngineDispatchHost): void {
     const config = parseWaveformConfig(request.config);
     const { meta, buffers } = packWaveform(generateWaveform(config));
     response = {
-      type: "generated",
+      type: 'generated',
       id: request.id,
       protocolVersion: PROTOCOL_VERSION,
       config,
@@ -137,20 +143,20 @@ export function createEngineDispatcher(host: EngineDispatchHost): (data: unknown
 
   return (data: unknown): void => {
     if (!isWorkerRequest(data)) {
-      const id = typeof (data as { id?: unknown } | null)?.id === "number" ? (data as { id: number }).id : -1;
-      host.post(errorResponse(id, new DspError("INTERNAL", "The engine worker received a message it does not understand.")), []);
+      const id = typeof (data as { id?: unknown } | null)?.id === 'number' ? (data as { id: number }).id : -1;
+      host.post(errorResponse(id, new DspError('INTERNAL', 'The engine worker received a message it does not understand.')), []);
       return;
     }
     if (data.protocolVersion !== PROTOCOL_VERSION) {
       const message = `The page speaks engine protocol v${String(data.protocolVersion)} but this worker speaks v${PROTOCOL_VERSION}; reload the page.`;
-      host.post(errorResponse(data.id, new DspError("INTERNAL", message)), []);
+      host.post(errorResponse(data.id, new DspError('INTERNAL', message)), []);
       return;
     }
     switch (data.type) {
-      case "cancel":
+      case 'cancel':
         cancelledIds.add(data.targetId);
         return;
-      case "generate":
+      case 'generate':
         newestGenerateId = Math.max(newestGenerateId, data.id);
         queue.push(data);
         if (!drainScheduled) {

@@ -27,7 +27,12 @@ function createHarness() {
   return { posted, dispatch, runTasks };
 }
 
-const generate = (id: number, config: unknown = smallConfig) => ({ type: 'generate', id, protocolVersion: PROTOCOL_VERSION, config });
+const generate = (id: number, config: unknown = smallConfig) => ({
+  type: 'generate',
+  id,
+  protocolVersion: PROTOCOL_VERSION,
+  config,
+});
 
 describe('engine dispatcher', () => {
   it('posts exactly what the engine generates, with every buffer in the transfer list', () => {

@@ -1,8 +1,9 @@
 import { describe, expectTypeOf, it, expect } from 'vitest';
 import type { WaveformConfig } from '../../src/config/schema';
 import type { DspErrorCode } from '../../src/dsp/errors';
-import type { GeneratedWaveform } from '../../src/dsp/waveform/waveformGenerator';
+import { RE_DATA, RE_EMPTY, RE_REFERENCE, type GeneratedWaveform } from '../../src/dsp/waveform/waveformGenerator';
 import {
+  GRID_KIND,
   isWorkerRequest,
   isWorkerResponse,
   PROTOCOL_VERSION,
@@ -71,6 +72,10 @@ describe('protocol unions (compile time)', () => {
 
 describe('protocol guards', () => {
   const envelope = { id: 3, protocolVersion: PROTOCOL_VERSION };
+
+  it('repeats the engine’s resource-element kinds exactly', () => {
+    expect(GRID_KIND).toEqual({ empty: RE_EMPTY, data: RE_DATA, reference: RE_REFERENCE });
+  });
 
   it('lists one view constructor per transferred buffer', () => {
     expect([...waveformBufferKeys].sort()).toEqual(['bits', 'dataSymbolsIq', 'gridIq', 'gridKinds', 'waveformIq']);

@@ -1,6 +1,6 @@
-import type { Config, Data, Layout } from "plotly.js-dist-min";
-import { useEffect, useRef, useState } from "react";
-import { loadPlotly } from "./loadPlotly";
+import type { Config, Data, Layout } from 'plotly.js-dist-min';
+import { useEffect, useRef, useState } from 'react';
+import { loadPlotly } from './loadPlotly';
 
 export interface Figure {
   data: Data[];
@@ -18,7 +18,7 @@ export interface PlotlyFigureProps {
 const plotConfig: Partial<Config> = {
   responsive: true,
   displaylogo: false,
-  modeBarButtonsToRemove: ["lasso2d", "select2d"],
+  modeBarButtonsToRemove: ['lasso2d', 'select2d'],
 };
 
 /**
