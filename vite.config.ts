@@ -11,7 +11,7 @@ function relaxCspInDevServer(): Plugin {
     name: 'crestline-relax-csp-in-dev',
     apply: 'serve',
     transformIndexHtml(html) {
-      return html.replace(/<meta http-equiv="Content-Security-Policy"[^>]*>\s*/, '');
+      return html.replace(/<meta\s+http-equiv="Content-Security-Policy"[^>]*>\s*/, '');
     },
   };
 }

@@ -50,10 +50,14 @@ export function PlotlyFigure({ figure, label, testId }: PlotlyFigureProps) {
     };
   }, [figure]);
 
+  // Purge Plotly's listeners on a real unmount only: React's development re-mount (StrictMode) keeps the box.
+  const mounted = useRef(false);
   useEffect(() => {
+    mounted.current = true;
     const box = boxRef.current;
     return () => {
-      if (box !== null) void loadPlotly().then((Plotly) => Plotly.purge(box));
+      mounted.current = false;
+      if (box !== null) void loadPlotly().then((Plotly) => (mounted.current ? undefined : Plotly.purge(box)));
     };
   }, []);
 
