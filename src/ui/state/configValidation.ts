@@ -2,27 +2,17 @@
  * Schema check of the form's draft on the main thread: zod only, no engine code, so a bad value is
  * marked at its field at once and never reaches the worker. Cross-field rules (grid limits, DFT
  * sizes) are checked by the worker's parseWaveformConfig; its issues arrive in the same shape.
- * Issue paths and wording follow src/config/configParse.ts.
  */
-import type { ConfigIssue } from '../../config/configParse';
-import { waveformConfigSchema } from '../../config/schema';
+import { checkConfigSchema, type ConfigIssue, TOP_LEVEL_PATH } from '../../config/schemaIssues';
 
 /** The form's working copy: WaveformConfigInput-shaped, but it may hold values the schema rejects. */
 export type ConfigDraft = Readonly<Record<string, unknown>>;
 
-export const TOP_LEVEL_PATH = '(top level)';
+export { TOP_LEVEL_PATH };
 
 /** Issues the schema finds in `draft` (empty when the draft may go to the engine). */
 export function checkDraftAgainstSchema(draft: ConfigDraft): ConfigIssue[] {
-  const parsed = waveformConfigSchema.safeParse(draft);
-  if (parsed.success) return [];
-  return parsed.error.issues.map((issue) => {
-    const path = issue.path.length > 0 ? issue.path.map(String).join('.') : TOP_LEVEL_PATH;
-    if (issue.code === 'unrecognized_keys') {
-      return { path, message: `unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((k) => `"${k}"`).join(', ')}` };
-    }
-    return { path, message: issue.message };
-  });
+  return checkConfigSchema(draft).issues;
 }
 
 /** Issues by dotted path; several on one path are joined. */
