@@ -61,13 +61,11 @@ export function levelsFromHistogram(
     return counts.length - 1;
   };
   const centreOrNull = (j: number): number | null => (j >= 1 && j <= histogram.numBins ? binCentreDb(histogram, j) : null);
+  const tooShort: { key: string; needed: number }[] = [];
   const levels = probabilities.map((p, i): LevelEstimate => {
     const key = (LEVEL_KEYS[i] ?? String(p)) as LevelKey;
     if (trials * p < MIN_EXPECTED_EXCEEDANCES) {
-      const needed = Math.ceil(MIN_EXPECTED_EXCEEDANCES / (p * scale));
-      warnings.push(
-        `${options.what} at ${key}: the run has ${total} ${options.unit}, fewer than the ${needed} needed for about ${MIN_EXPECTED_EXCEEDANCES} values beyond that probability, so this level is reported as null. Run more symbols.`,
-      );
+      tooShort.push({ key, needed: Math.ceil(MIN_EXPECTED_EXCEEDANCES / (p * scale)) });
       return { key, probability: p, levelDb: null, ci95Db: null };
     }
     const j = firstBin((k) => k <= p * trials);
@@ -81,6 +79,12 @@ export function levelsFromHistogram(
     }
     return { key, probability: p, levelDb, ci95Db: [centreOrNull(lower), centreOrNull(upper)] };
   });
+  if (tooShort.length > 0) {
+    const plural = tooShort.length > 1;
+    warnings.unshift(
+      `${options.what} at ${tooShort.map((t) => t.key).join(', ')}: the run has ${total} ${options.unit}, fewer than the ${tooShort.map((t) => t.needed).join(', ')} needed for about ${MIN_EXPECTED_EXCEEDANCES} values beyond ${plural ? 'each probability' : 'that probability'}, so ${plural ? 'these levels are' : 'this level is'} reported as null. Run more symbols.`,
+    );
+  }
   return { levels, warnings };
 }
 
