@@ -58,6 +58,11 @@ describe('crestline measure', () => {
     const merged = await run(['merge', files[2]!, files[0]!, files[1]!, '--json']);
     expect(merged.code, merged.err).toBe(0);
     expect(merged.out).toBe(single.out);
+    // Reporting options apply at merge time too: dBFS = dB − 20·log10(A_fs) (powerLevels.ts; common practice).
+    const dbfs = JSON.parse((await run(['merge', ...files, '--json', '--full-scale', '100', '--papr-mean', 'symbol'])).out);
+    expect(dbfs.meanPowerDbfs).toBeCloseTo(dbfs.meanPowerDb - 40, 2);
+    expect(dbfs.paprDb).toEqual(dbfs.paprSymbolMeanDb);
+    expect(dbfs.paprDefinition).toMatch(/that symbol's own mean power/);
     const missing = await run(['merge', files[0]!, files[1]!]);
     expect(missing.code).toBe(2);
     expect(missing.err).toMatch(/Shard 3\/3 missing/);
