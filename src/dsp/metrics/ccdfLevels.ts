@@ -3,7 +3,9 @@ import { wilsonInterval, Z_95 } from './confidence';
 
 /** The probabilities at which levels are reported, and their JSON keys. */
 export const LEVEL_PROBABILITIES = [1e-1, 1e-2, 1e-3, 1e-4, 1e-5] as const;
+/** JSON keys of LEVEL_PROBABILITIES. */
 export const LEVEL_KEYS = ['1e-1', '1e-2', '1e-3', '1e-4', '1e-5'] as const;
+/** One of LEVEL_KEYS. */
 export type LevelKey = (typeof LEVEL_KEYS)[number];
 
 /**
@@ -22,6 +24,7 @@ export interface LevelEstimate {
   readonly ci95Db: readonly [number | null, number | null] | null;
 }
 
+/** How `levelsFromHistogram` names and counts the values. */
 export interface LevelOptions {
   /** Names the statistic in warnings, e.g. "PAPR (peak / run mean)". */
   readonly what: string;

@@ -8,6 +8,7 @@ import { runTotals, type RunStats } from './runStats';
 /** Which PAPR definition fills `paprDb`. */
 export type PaprMeanDefinition = 'run' | 'symbol';
 
+/** Options that change only how counts are reported (so `merge` may choose them afresh). */
 export interface ReportOptions {
   /** Default 'run': peak / expected mean power of the whole waveform. */
   readonly paprMean?: PaprMeanDefinition | undefined;
@@ -16,7 +17,9 @@ export interface ReportOptions {
   readonly fullScale?: number | undefined;
 }
 
+/** Level in dB per probability key; null where the run is too short. */
 export type LevelMap = Record<LevelKey, number | null>;
+/** 95 % interval [lower, upper] dB per probability key. */
 export type IntervalMap = Record<LevelKey, readonly [number | null, number | null] | null>;
 
 /** The result of `crestline measure` / `crestline merge`, as plain JSON. */

@@ -64,10 +64,12 @@ export interface MeasurementContext {
   readonly notes: readonly string[];
 }
 
+/** The identity of the run a setup describes. */
 export function runIdentityOf(setup: MeasurementSetup): RunIdentity {
   return { config: setup.config, oversampling: setup.oversampling, precision: setup.precision, run: setup.run };
 }
 
+/** Facts about the statistics' waveform, from its plan and power source. */
 export function statisticsFactsOf(plan: WaveformPlan, source: PowerSource): StatisticsFacts {
   return {
     waveform: plan.waveform,
@@ -78,6 +80,7 @@ export function statisticsFactsOf(plan: WaveformPlan, source: PowerSource): Stat
   };
 }
 
+/** The JSON summary of a spectrum measurement (unbounded ACLR values become null). */
 export function summariseSpectrum(m: SpectrumMeasurement): SpectrumSummary {
   return {
     oversampling: m.oversampling,

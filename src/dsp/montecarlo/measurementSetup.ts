@@ -10,6 +10,7 @@ export const DEFAULT_STATISTICS_OVERSAMPLING = 4;
 /** Run seed when the configuration's data source is not seeded random data. */
 export const DEFAULT_RUN_SEED = 1;
 
+/** What the user asked for: symbols, block size, seed, oversampling, precision. */
 export interface MeasurementRequest {
   readonly symbols: number;
   readonly blockSymbols?: number | undefined;

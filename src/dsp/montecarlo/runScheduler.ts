@@ -24,6 +24,7 @@ export interface MonteCarloProgress {
   readonly secondsLeft: number | null;
 }
 
+/** Cancel, progress, clock and yielding for `runMonteCarloBlocks`. */
 export interface RunBlocksOptions {
   /** Cancels the run: the promise rejects with `signal.reason` and no more blocks start. */
   readonly signal?: AbortSignal | undefined;

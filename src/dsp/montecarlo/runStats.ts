@@ -13,6 +13,7 @@ export interface RunStats {
   readonly records: Map<number, BlockRecord>;
 }
 
+/** Empty counts: no blocks, empty histograms. */
 export function createRunStats(): RunStats {
   return { histograms: createHistogramSet(), records: new Map() };
 }
@@ -57,6 +58,7 @@ export interface RunTotals {
   readonly maxPaprSymbolMean: number;
 }
 
+/** Sums the block records in ascending block order (the order that makes totals identical however blocks were run). */
 export function runTotals(stats: RunStats): RunTotals {
   const indices = [...stats.records.keys()].sort((a, b) => a - b);
   let numSymbols = 0;

@@ -14,8 +14,10 @@ import { createRunStats, mergeRunStats, type RunStats } from './runStats';
  * reads back to the same double, so merged results are bit-identical to a single run.
  */
 export const SHARD_FORMAT = 'crestline-measure-shard';
+/** Version of the shard JSON layout; `merge` reads only this version. */
 export const SHARD_FORMAT_VERSION = 1;
 
+/** A parsed shard: its context, which shard it is, and its counts. */
 export interface ShardFile {
   readonly context: MeasurementContext;
   readonly shard: ShardSpec;
