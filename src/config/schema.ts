@@ -6,7 +6,7 @@ import { amplifierSchema, impairmentsSchema, paprReductionSchema, spectrumShapin
  * The one description of a waveform, shared by the CLI, the worker and the UI. `parseWaveformConfig` (configParse.ts)
  * applies it, then checks what depends on several fields (numerology, allocations, DFT sizes).
  */
-const modulationSchema = z.enum(MODULATIONS as unknown as [string, ...string[]], {
+const modulationSchema = z.enum(MODULATIONS, {
   error: `must be one of ${MODULATIONS.join(', ')}`,
 });
 
