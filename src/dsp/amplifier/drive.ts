@@ -21,14 +21,14 @@ export interface DrivePoint {
   readonly meanOutputPower: number;
 }
 
-/** Back-off search tolerance in IBO, dB (the OBO found is within about this of the target). */
+/** Back-off search tolerance, dB: the search stops when OBO is within a tenth of this of the target or the IBO bracket is this narrow. */
 export const DRIVE_TOLERANCE_DB = 1e-5;
 
 /**
  * Finds the input scale that gives the wanted back-off for this model and this signal.
  * IBO fixes the scale directly: s = r_sat / √(P_in·10^{IBO/10}). OBO depends on the signal's envelope
  * statistics, so it is found by measurement: the mean output power is evaluated on the actual signal and the IBO
- * is bracketed (2 dB steps from the small-signal prediction) then bisected to DRIVE_TOLERANCE_DB. For models whose
+ * is bracketed (2 dB steps from the small-signal prediction) then narrowed by false position (Illinois) to DRIVE_TOLERANCE_DB. For models whose
  * output folds back (Saleh) the search stops where OBO stops falling.
  * @param signalIq the signal at unit scale, 2N values (any mean power > 0)
  * @throws DspError INVALID_CONFIG when the signal is silent or the OBO asked for cannot be reached, with the least reachable OBO
@@ -81,15 +81,32 @@ export function solveDrive(model: AmplifierModel, signalIq: Float64Array, drive:
       { field: 'amplifier.backoffDb', leastOboDb: least.oboDb },
     );
   }
-  // a: OBO ≥ target (less drive, higher IBO); b: OBO < target.
+  // a: OBO ≥ target (less drive, higher IBO); b: OBO < target. Illinois false position on f(IBO) = OBO − target
+  // (Dowell & Jarratt, BIT 11:168–174, 1971): keeps the bracket like bisection, converges superlinearly.
   let hi = a;
   let lo = b;
-  while (Math.abs(hi.iboDb - lo.iboDb) > DRIVE_TOLERANCE_DB) {
-    const mid = point((hi.iboDb + lo.iboDb) / 2);
-    if (mid.oboDb >= target) hi = mid;
-    else lo = mid;
+  let fHi = hi.oboDb - target;
+  let fLo = lo.oboDb - target;
+  let side = 0;
+  for (let it = 0; it < 100 && Math.abs(hi.iboDb - lo.iboDb) > DRIVE_TOLERANCE_DB; it++) {
+    let ibo = (lo.iboDb * fHi - hi.iboDb * fLo) / (fHi - fLo);
+    if (!(ibo > Math.min(lo.iboDb, hi.iboDb) && ibo < Math.max(lo.iboDb, hi.iboDb))) ibo = (lo.iboDb + hi.iboDb) / 2;
+    const mid = point(ibo);
+    const f = mid.oboDb - target;
+    if (Math.abs(f) < DRIVE_TOLERANCE_DB / 10) return mid;
+    if (f >= 0) {
+      hi = mid;
+      fHi = f;
+      if (side === 1) fLo /= 2;
+      side = 1;
+    } else {
+      lo = mid;
+      fLo = f;
+      if (side === -1) fHi /= 2;
+      side = -1;
+    }
   }
-  return Math.abs(hi.oboDb - target) <= Math.abs(lo.oboDb - target) ? hi : lo;
+  return Math.abs(fHi) <= Math.abs(fLo) ? hi : lo;
 }
 
 function leastObo(point: (iboDb: number) => DrivePoint, fromIboDb: number, step: number): DrivePoint {
