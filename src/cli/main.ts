@@ -1,9 +1,11 @@
 import { Command, CommanderError } from 'commander';
 import { reportCliError } from './cliErrors';
+import { registerAnalyze } from './commands/analyze';
 import { registerGenerate } from './commands/generate';
+import { registerLink } from './commands/link';
 
 /** Every subcommand registers itself here; each lives in src/cli/commands/<name>.ts. */
-const COMMANDS: readonly ((program: Command, io: CliIo) => void)[] = [registerGenerate];
+const COMMANDS: readonly ((program: Command, io: CliIo) => void)[] = [registerGenerate, registerAnalyze, registerLink];
 
 /** Where a command prints; tests pass their own. */
 export interface CliIo {
