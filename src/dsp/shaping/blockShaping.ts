@@ -24,6 +24,13 @@ export function attachSpectrumShaping(
       field: 'spectrumShaping',
     });
   }
+  if (config.referenceSignals?.enabled) {
+    throw new DspError(
+      'INVALID_CONFIG',
+      'spectrumShaping with referenceSignals is not supported yet: the reference signals would need the same shaping and extension; turn one of them off.',
+      { field: 'spectrumShaping' },
+    );
+  }
   if (config.mapping !== 'localized') {
     throw new DspError('INVALID_CONFIG', 'spectrumShaping needs localized mapping (the shaped block must be contiguous).', { field: 'spectrumShaping' });
   }
