@@ -14,13 +14,13 @@ async function run(args: string[]): Promise<{ code: number; out: string[]; err: 
 
 describe('crestline backoff', () => {
   const dir = mkdtempSync(join(tmpdir(), 'crestline-backoff-'));
-  const base = { bandwidthMHz: 1.4, modulation: 'qpsk', symbols: 14, data: { source: 'random', seed: TEST_SEED }, windowing: { rampLengthSamples: 4 } };
+  const base = { bandwidthMHz: 1.4, modulation: 'qpsk', symbols: 14, data: { source: 'random', seed: TEST_SEED }, windowing: { rampLengthSamples: 2 } };
   const cfg1 = join(dir, 'dfts.json');
   const cfg2 = join(dir, 'ofdm.json');
   writeFileSync(cfg1, JSON.stringify({ ...base, waveform: 'dft-s-ofdm' }));
   writeFileSync(cfg2, JSON.stringify({ ...base, waveform: 'ofdm' }));
 
-  it('prints the curve and the answer as JSON, with a comparison', async () => {
+  it('prints the curve and the answer as JSON, with a comparison', { timeout: 60000 }, async () => {
     const r = await run(['backoff', '--config', cfg1, '--pa', 'rapp', '--smoothness', '2', '--psat-dbm', '26', '--from', '1', '--to', '9', '--evm-limit', '10', '--compare', cfg2, '--json']);
     expect(r.code, r.err.join('\n')).toBe(0);
     const json = JSON.parse(r.out.join('\n'));
@@ -36,7 +36,7 @@ describe('crestline backoff', () => {
     expect(json.compare.usablePowerDifferenceDb).toBeGreaterThan(0); // DFT-s-OFDM can transmit more (common practice)
   });
 
-  it('reads a measured table and takes P_sat from it', async () => {
+  it('reads a measured table and takes P_sat from it', { timeout: 60000 }, async () => {
     const table = join(dir, 'pa.csv');
     const rows = ['input_dbm,gain_db,phase_deg'];
     for (let pin = -10; pin <= 16; pin += 2) {
@@ -55,7 +55,7 @@ describe('crestline backoff', () => {
     expect(json.usableOutputDbm).toBeCloseTo(json.psatDbm - json.requiredOboDb, 3);
   });
 
-  it('prints a readable report and fails with exit code 2 on bad options', async () => {
+  it('prints a readable report and fails with exit code 2 on bad options', { timeout: 60000 }, async () => {
     const r = await run(['backoff', '--config', cfg1, '--pa', 'clip', '--from', '2', '--to', '8', '--step', '2']);
     expect(r.code, r.err.join('\n')).toBe(0);
     expect(r.out.join('\n')).toMatch(/required OBO \d+\.\d+ dB/);

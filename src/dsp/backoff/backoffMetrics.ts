@@ -4,6 +4,7 @@ import { aclrPlanFor, aclrSpanHz, computeAclr, type AclrPlan } from '../metrics/
 import { createPowerBinner, binPowersInto } from '../metrics/powerBinner';
 import { computeWelchPsd } from '../metrics/welchPsd';
 import { DspError } from '../errors';
+import { measureEvm } from '../receiver/evmMeasurement';
 import { measureGridEvm } from '../txcheck/gridEvm';
 import type { SymbolLayout, WaveformPlan } from '../waveform/waveformPlan';
 
@@ -29,9 +30,13 @@ export interface MetricsWaveform {
 }
 
 /**
- * Metrics for a generated waveform: EVM with known timing and no channel (txcheck/gridEvm.ts: FFT window right after
- * the CP, one complex gain fitted over the record) — TODO(issue 5): use the reference receiver's EVM once it lands —
- * and ACLR per the standard's adjacent channels from a Welch PSD (src/dsp/metrics: aclrPlanFor, computeAclr).
+ * Metrics for a generated waveform, no channel:
+ * - EVM through the reference receiver (src/dsp/receiver/evmMeasurement.ts: known timing, zero-forcing equaliser from the
+ *   reference signals or, for data-only waveforms, from the known transmit grid; the larger EVM of the two Annex F window
+ *   positions). With spectrum shaping the receiver does not undo the shaping, so the known-timing grid EVM
+ *   (txcheck/gridEvm.ts, matched combining, one complex gain) is used instead and the method says so.
+ *   Standard error from the spread of per-symbol EVM² (delta method).
+ * - ACLR per the standard's adjacent channels from a Welch PSD (src/dsp/metrics: aclrPlanFor, computeAclr).
  * @param rbwHz Welch resolution bandwidth (default channel bandwidth / 200: ACLR integrates over MHz, and a coarse RBW
  *        averages ~30 segments even on a 1 ms record)
  * @throws DspError INVALID_CONFIG when the sample rate does not cover the adjacent channels
@@ -48,10 +53,21 @@ export function createWaveformMetrics(wave: MetricsWaveform, rbwHz?: number): Ba
       { field: 'oversampling' },
     );
   }
+  const shaped = wave.plan.allocations.some((a) => a.shaping !== undefined);
+  const referenceOn = wave.plan.config.referenceSignals?.enabled === true;
   return {
     evm(outputIq) {
-      const r = measureGridEvm(wave.plan, wave.symbolLayout, wave.gridIq, outputIq, { gridKinds: wave.gridKinds });
-      return { evmRmsPercent: r.evmRmsPercent, evmStandardErrorPercent: r.evmStandardErrorPercent };
+      if (shaped) {
+        const r = measureGridEvm(wave.plan, wave.symbolLayout, wave.gridIq, outputIq, { gridKinds: wave.gridKinds });
+        return { evmRmsPercent: r.evmRmsPercent, evmStandardErrorPercent: r.evmStandardErrorPercent };
+      }
+      const { report } = measureEvm(wave.plan, outputIq, {
+        timing: 'known',
+        knownTimingOffsetSamples: 0,
+        channelEstimation: referenceOn ? 'reference' : 'known-grid',
+        ...(referenceOn ? {} : { transmittedGridIq: wave.gridIq }),
+      });
+      return { evmRmsPercent: report.evmRmsPercent, evmStandardErrorPercent: perSymbolStandardError(report.perSymbolPercent, report.evmRmsPercent) };
     },
     aclr(outputIq) {
       const welch = { sampleRateHz: wave.sampleRateHz, rbwHz: rbw, window: 'hann' as const };
@@ -78,11 +94,23 @@ export function createWaveformMetrics(wave: MetricsWaveform, rbwHz?: number): Ba
       return { aclrDb, standardErrorDb };
     },
     methods: {
-      evm: 'known-timing EVM (FFT after the CP, one complex gain over the record, data REs; TS 36.101 Annex F.2 form), no channel',
+      evm: shaped
+        ? 'known-timing grid EVM after matched combining of the shaped spectrum (one complex gain over the record, data REs; TS 36.101 Annex F.2 form), no channel'
+        : `reference receiver EVM, known timing, ZF from ${referenceOn ? 'the reference signals' : 'the known transmit grid'}, larger of the two Annex F window positions (TS 36.101 / TS 38.101-1 Annex F), no channel`,
       aclr: `Welch PSD (Hann, RBW ${(rbw / 1e3).toFixed(1)} kHz) through the standard's channel filters; standard error from the spread over ${ACLR_CHUNKS} record quarters`,
     },
     aclrChannels: aclrPlan.channels.map((c) => c.key),
   };
+}
+
+/** Standard error of an RMS EVM from its per-symbol values (NaN for symbols without data are skipped): se(EVM²)/(2·EVM). */
+function perSymbolStandardError(perSymbolPercent: readonly number[], evmPercent: number): number {
+  const squares = perSymbolPercent.filter((v) => Number.isFinite(v)).map((v) => v * v);
+  const n = squares.length;
+  if (n < 2 || !(evmPercent > 0)) return 0;
+  const mean = squares.reduce((a, b) => a + b, 0) / n;
+  const variance = squares.reduce((a, b) => a + (b - mean) ** 2, 0) / (n - 1);
+  return Math.sqrt(variance / n) / (2 * evmPercent);
 }
 
 /** Record pieces whose ACLR spread gives the statistical error. */

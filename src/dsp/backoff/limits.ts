@@ -1,6 +1,7 @@
 import { DspError } from '../errors';
 import type { Modulation } from '../modulation/constellations';
 import type { Numerology } from '../numerology/numerology';
+import { evmLimitFor } from '../receiver/evmLimits';
 
 /** A default limit with where it comes from. */
 export interface SourcedLimit {
@@ -9,37 +10,13 @@ export interface SourcedLimit {
 }
 
 /**
- * Required RMS EVM, % (REFERENCE.md §5.4):
- * - UE: TS 36.101 §6.5.2.1 Table 6.5.2.1.1-1 (LTE) and TS 38.101-1 §6.4.2.1 Table 6.4.2.1-1 (NR); from memory — verify.
- * - BS (downlink): TS 36.104 Table 6.5.2-1 (LTE, from memory — verify) and TS 38.104 Table 6.5.2.2-1 (NR, QPSK…256QAM [S2]).
- * A custom numerology uses the NR UE values (common practice: the same EVM budget per modulation).
+ * The standard's EVM limit for `modulation` on this numerology's link (the reference receiver's table,
+ * src/dsp/receiver/evmLimits.ts: UE limits on the uplink, BS limits on the downlink; REFERENCE.md §5.4), or undefined when
+ * it defines none (plain BPSK, custom numerologies).
  */
-const UE_EVM: Record<'lte' | 'nr', Partial<Record<Modulation, number>>> = {
-  lte: { qpsk: 17.5, '16qam': 12.5, '64qam': 8, '256qam': 3.5 },
-  nr: { 'pi/2-bpsk': 30, qpsk: 17.5, '16qam': 12.5, '64qam': 8, '256qam': 3.5 },
-};
-const BS_EVM: Record<'lte' | 'nr', Partial<Record<Modulation, number>>> = {
-  lte: { qpsk: 17.5, '16qam': 12.5, '64qam': 8, '256qam': 3.5, '1024qam': 2.5 },
-  nr: { qpsk: 17.5, '16qam': 12.5, '64qam': 8, '256qam': 3.5, '1024qam': 2.5 },
-};
-
-/** The standard's EVM limit for `modulation` on this numerology's link, or undefined when it defines none (e.g. BPSK). */
 export function defaultEvmLimit(numerology: Numerology, modulation: Modulation): SourcedLimit | undefined {
-  const tech = numerology.standard === 'lte' ? 'lte' : 'nr';
-  const downlink = numerology.link === 'downlink';
-  const value = (downlink ? BS_EVM : UE_EVM)[tech][modulation];
-  if (value === undefined) return undefined;
-  const clause = downlink
-    ? tech === 'lte'
-      ? 'TS 36.104 Table 6.5.2-1 (from memory — verify)'
-      : modulation === '1024qam'
-        ? 'TS 38.104 Table 6.5.2.2-1 (from memory — verify)'
-        : 'TS 38.104 Table 6.5.2.2-1'
-    : tech === 'lte'
-      ? 'TS 36.101 §6.5.2.1, Table 6.5.2.1.1-1 (from memory — verify)'
-      : 'TS 38.101-1 §6.4.2.1, Table 6.4.2.1-1 (from memory — verify)';
-  const note = numerology.standard === 'custom' ? ' (NR UE value used for a custom numerology, common practice)' : '';
-  return { value, source: `${clause}${note}` };
+  const limit = evmLimitFor(numerology.standard, numerology.link, modulation);
+  return limit.limitPercent === undefined ? undefined : { value: limit.limitPercent, source: limit.source };
 }
 
 /**
@@ -51,7 +28,11 @@ export function defaultEvmLimitFor(numerology: Numerology, modulations: readonly
   for (const m of new Set(modulations)) {
     const limit = defaultEvmLimit(numerology, m);
     if (!limit) {
-      throw new DspError('INVALID_CONFIG', `No standard EVM limit for ${m} on this link; give the EVM budget yourself (--evm-limit, %).`, { field: 'evmLimitPercent' });
+      throw new DspError(
+        'INVALID_CONFIG',
+        `No standard EVM limit for ${m} on this ${numerology.standard === 'custom' ? 'custom numerology' : 'link'}; give the EVM budget yourself (--evm-limit, %).`,
+        { field: 'evmLimitPercent' },
+      );
     }
     if (!best || limit.value < best.value) best = limit;
   }

@@ -40,3 +40,22 @@ describe('raised-cosine transmit windowing (WOLA at the transmitter)', () => {
     expect(() => applyTimeWindowing(wave.waveformIq, wave.symbolLayout, 10, 1, new Float64Array(wave.waveformIq.length))).toThrow(/shortest cyclic prefix \(9/);
   });
 });
+
+describe('windowing against the standard EVM window (TS 36.101 Annex F, reference receiver)', () => {
+  it('costs EVM only once the ramp reaches the early FFT position of the EVM window W (LTE 1.4 MHz: W = 5 of CP 9)', async () => {
+    const { measureEvm } = await import('../../../src/dsp/receiver/evmMeasurement');
+    const { applyTransmitterChain } = await import('../../../src/dsp/transmitter/transmitterChain');
+    const evmFor = (ramp: number): number => {
+      const cfg = parseWaveformConfig({ bandwidthMHz: 1.4, modulation: 'qpsk', symbols: 14, oversampling: 2, data: { source: 'random', seed: TEST_SEED }, windowing: { rampLengthSamples: ramp } });
+      const wave = generateWaveform(cfg);
+      const tx = applyTransmitterChain(wave, cfg).outputIq;
+      return measureEvm(wave.plan, tx, { timing: 'known', channelEstimation: 'known-grid', transmittedGridIq: wave.gridIq }).report.evmRmsPercent;
+    };
+    // The early position starts ⌊(CP − W)/2⌋ = 2 samples into the CP (Annex F, REFERENCE.md §5.4): ramps of 1–2 samples stay
+    // before it, longer ones overlap it.
+    expect(evmFor(1)).toBeLessThan(1e-6);
+    expect(evmFor(2)).toBeLessThan(1e-6);
+    expect(evmFor(4)).toBeGreaterThan(1);
+    expect(evmFor(6)).toBeGreaterThan(evmFor(4));
+  });
+});
