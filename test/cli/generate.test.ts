@@ -1,105 +1,54 @@
-import { spawn } from 'node:child_process';
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { streamExportToFiles, ExportCancelledError } from '../../src/cli/streamExport';
+import { main } from '../../src/cli/main';
 import { parseWaveformConfig } from '../../src/config/configParse';
 import { generateWaveform } from '../../src/dsp/waveform/waveformGenerator';
-import { encodeCf32Le } from '../../src/io/cf32';
-import { exportToMemory } from '../../src/io/exportMemory';
-import { planExport } from '../../src/io/exportPlan';
-import { runCli, workDir } from './cliHarness';
+import { decodeCf32Le } from '../../src/io/cf32';
+
+async function run(args: string[]) {
+  const out: string[] = [];
+  const err: string[] = [];
+  const code = await main(['node', 'crestline', ...args], { stdout: (l) => out.push(l), stderr: (l) => err.push(l) });
+  return { code, out: out.join('\n'), err: err.join('\n') };
+}
 
 describe('crestline generate', () => {
-  it('default: SigMF cf32_le at the waveform rate, formula scale, exactly the in-memory waveform; no caution line', async () => {
-    const { dir, configPath } = workDir({ symbols: 14 });
-    const r = await runCli(['generate', '--config', configPath, '--out', join(dir, 'a')]);
-    expect(r.code).toBe(0);
-    const data = readFileSync(join(dir, 'a.sigmf-data'));
-    expect(Buffer.from(encodeCf32Le(generateWaveform(parseWaveformConfig({ symbols: 14 })).waveformIq)).equals(data)).toBe(true);
-    const meta = JSON.parse(readFileSync(join(dir, 'a.sigmf-meta'), 'utf8'));
+  it('writes a SigMF pair whose data is the formula samples in cf32_le and whose meta regenerates them', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'crestline-gen-'));
+    const cfg = { standard: 'lte', bandwidthMHz: 1.4, modulation: '16qam', symbols: 7 };
+    writeFileSync(join(dir, 'cfg.json'), JSON.stringify(cfg));
+    const r = await run(['generate', '--config', join(dir, 'cfg.json'), '--out', join(dir, 'wave')]);
+    expect(r.code, r.err).toBe(0);
+    expect(r.out).toMatch(/960 samples, 0.500 ms at 1.920 Msps, mean power/);
+    const data = readFileSync(join(dir, 'wave.sigmf-data'));
+    const meta = JSON.parse(readFileSync(join(dir, 'wave.sigmf-meta'), 'utf8'));
+    // SigMF: required global core:datatype and core:version; sha512 of the data file (SigMF spec, REFERENCE.md §9).
     expect(meta.global['core:datatype']).toBe('cf32_le');
-    expect(meta.global['core:sample_rate']).toBe(30.72e6);
-    expect(r.stdout).toMatch(/30720 samples, 1\.000 ms at 30\.720 Msps, mean power .* dB \(re 1, unscaled formula\)/);
-    expect(r.stderr).not.toMatch(/caution/);
-    expect(readdirSync(dir).sort()).toEqual(['a.sigmf-data', 'a.sigmf-meta', 'cfg.json']);
+    expect(meta.global['core:version']).toMatch(/^\d+\.\d+\.\d+$/);
+    expect(meta.global['core:sample_rate']).toBe(1.92e6);
+    expect(meta.global['core:sha512']).toBe(createHash('sha512').update(data).digest('hex'));
+    expect(Object.keys(meta).sort()).toEqual(['annotations', 'captures', 'global']);
+    // 8 bytes per complex cf32 sample.
+    expect(data.byteLength).toBe(960 * 8);
+    const regenerated = generateWaveform(parseWaveformConfig(meta.global['crestline:config']));
+    const decoded = decodeCf32Le(new Uint8Array(data));
+    const asF32 = Float32Array.from(regenerated.waveformIq);
+    expect(Array.from(decoded)).toEqual(Array.from(asF32));
   });
 
-  it('writes the same bytes as the browser’s in-memory export for every kind of format', async () => {
-    const input = { link: 'downlink', bandwidthMHz: 10, symbols: 14, carrierFrequencyHz: 1.8e9 };
-    const { dir, configPath } = workDir(input);
-    const config = parseWaveformConfig(input);
-    for (const [format, flags, options] of [
-      ['sigmf-ci16', ['--level-dbfs', '-14'], { level: { mode: 'rms', levelDbfs: -14 } }],
-      ['raw-i16be', ['--rate', '61.44e6', '--freq-offset', '2e6'], { sampleRateHz: 61.44e6, freqOffsetHz: 2e6 }],
-      ['wav16', ['--level-mode', 'peak', '--level-dbfs', '-1', '--repeat', '2'], { level: { mode: 'peak', levelDbfs: -1 }, repeat: 2 }],
-      ['csv', ['--scale', '0.01', '--author', 'Bench 4'], { level: { mode: 'linear', scaleLinear: 0.01 }, author: 'Bench 4' }],
-      ['sigmf-ci8', ['--center-frequency', '1.805e9'], { centerFrequencyHz: 1.805e9 }],
-    ] as const) {
-      const base = join(dir, format);
-      const r = await runCli(['generate', '--config', configPath, '--out', base, '--format', format, ...flags]);
-      expect(r.code, r.stderr).toBe(0);
-      expect(r.stderr).toMatch(/caution: transmit this waveform only where you are licensed/);
-      const mem = exportToMemory(config, { format, ...options } as never);
-      expect(Buffer.from(mem.data).equals(readFileSync(`${base}${mem.dataSuffix}`)), format).toBe(true);
-      expect(readFileSync(`${base}${mem.metaSuffix}`, 'utf8'), format).toBe(mem.metaText);
-    }
-  });
-
-  it('bad flags give a clear message and exit code 2', async () => {
-    const { dir, configPath } = workDir({ symbols: 7 });
-    const cases: [string[], RegExp][] = [
-      [['--format', 'mp3'], /--format "mp3" is not a format; allowed: sigmf-cf32/],
-      [['--level-mode', 'peak'], /--level-mode peak needs --level-dbfs/],
-      [['--rate', 'fast'], /--rate "fast" is not a number/],
-      [['--scale', '0.1', '--level-dbfs', '-3'], /cannot be combined/],
-      [['--repeat', '0'], /--repeat 0 must be a whole number/],
-      [['--rate', '15.36e6'], /does not fit a 15\.3600 Msps rate/],
-    ];
-    for (const [flags, message] of cases) {
-      const r = await runCli(['generate', '--config', configPath, '--out', join(dir, 'x'), ...flags]);
-      expect(r.code, flags.join(' ')).toBe(2);
-      expect(r.stderr).toMatch(message);
-      expect(r.stderr).not.toMatch(/ at .*\.ts:\d+/);
-    }
+  it('refuses bad input with a clear message, exit code 2 and no files left', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'crestline-bad-'));
+    writeFileSync(join(dir, 'cfg.json'), JSON.stringify({ standard: 'lte', allocation: { startRb: 0, numRb: 7 } }));
+    const r = await run(['generate', '--config', join(dir, 'cfg.json'), '--out', join(dir, 'wave')]);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/crestline: allocation: DFT-s-OFDM needs M_RB/);
+    expect(r.err).not.toMatch(/at .*\.ts:/); // no stack trace without --verbose
     expect(readdirSync(dir)).toEqual(['cfg.json']);
+    const missing = await run(['generate', '--config', join(dir, 'nope.json'), '--out', join(dir, 'w')]);
+    expect(missing.code).toBe(2);
+    expect(missing.err).toMatch(/Cannot read configuration file/);
   });
-
-  it('cancel mid-export leaves no file with a final name and no temporary either', async () => {
-    const { dir } = workDir({});
-    const plan = planExport(parseWaveformConfig({ symbols: 700, oversampling: 2 }), { format: 'sigmf-ci16' });
-    const controller = new AbortController();
-    let progressed = 0;
-    await expect(
-      streamExportToFiles(plan, join(dir, 'c'), {
-        signal: controller.signal,
-        onProgress: () => {
-          if (++progressed === 3) controller.abort();
-        },
-      }),
-    ).rejects.toBeInstanceOf(ExportCancelledError);
-    expect(readdirSync(dir)).toEqual(['cfg.json']);
-  });
-
-  it('SIGINT during a long export: exit 130, nothing left behind', async () => {
-    const { dir, configPath } = workDir({ link: 'downlink', symbols: 2800, oversampling: 4 });
-    const child = spawn(process.execPath, [join(process.cwd(), 'bin/crestline.js'), 'generate', '--config', configPath, '--out', join(dir, 'big'), '--format', 'sigmf-ci16'], {
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    let stderr = '';
-    let sent = false;
-    child.stderr.on('data', (d: Buffer) => {
-      stderr += d.toString();
-      if (!sent && /progress \[#/.test(stderr)) {
-        sent = true;
-        child.kill('SIGINT');
-      }
-    });
-    const code = await new Promise<number | null>((resolve) => child.on('exit', (c) => resolve(c)));
-    expect(sent).toBe(true);
-    expect(code).toBe(130);
-    expect(stderr).toMatch(/cancelled: .*big\.sigmf-data was not written/);
-    expect(readdirSync(dir)).toEqual(['cfg.json']);
-    expect(existsSync(join(dir, 'big.sigmf-meta'))).toBe(false);
-  }, 60_000);
 });
