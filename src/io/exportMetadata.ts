@@ -68,6 +68,11 @@ export function buildExportMetadata(input: MetadataInput): { text: string; repor
   } else if (level.mode !== 'formula' && w.maxComponentAbs > 1) {
     warnings.push(`Float samples reach ${w.peakComponentDb.toFixed(2)} dBFS (|I| or |Q| above 1.0); an instrument that reads ±1.0 as full scale will clip them.`);
   }
+  if (level.mode === 'auto' && level.probability !== undefined && level.probability * input.formulaSummary.numSamples < 10) {
+    warnings.push(
+      `level auto: the record has ${input.formulaSummary.numSamples} samples, too few for a stable CCDF level at ${level.probability}; the level used (${level.ccdfLevelDb?.toFixed(2)} dB above the mean) is close to the record's peak. Export more symbols or set --level-dbfs.`,
+    );
+  }
   const report: ExportReport = {
     format: plan.format.format,
     datatype: plan.format.datatype,

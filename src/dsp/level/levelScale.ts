@@ -17,7 +17,9 @@ export type LevelSpec =
   | { readonly mode: 'peak'; readonly levelDbfs: number }
   | { readonly mode: 'auto'; readonly marginDb?: number | undefined; readonly probability?: number | undefined };
 
+/** Margin of the auto level below full scale, dB. */
 export const DEFAULT_AUTO_MARGIN_DB = 1;
+/** CCDF probability whose level the auto mode fits under full scale. */
 export const DEFAULT_AUTO_PROBABILITY = 1e-4;
 
 /** The scale chosen and why. */

@@ -25,6 +25,7 @@ export const POWER_HISTOGRAM_MIN_DB = -300;
 export const POWER_HISTOGRAM_MAX_DB = 200;
 const NUM_BINS = Math.round((POWER_HISTOGRAM_MAX_DB - POWER_HISTOGRAM_MIN_DB) / POWER_HISTOGRAM_STEP_DB);
 
+/** An empty accumulator (the histogram is 50 000 bins of 0.01 dB). */
 export function createPowerStats(): PowerStats {
   return { numSamples: 0, sumPower: 0, maxPower: 0, maxComponentAbs: 0, zeroCount: 0, counts: new Float64Array(NUM_BINS) };
 }
@@ -91,6 +92,10 @@ export interface PowerSummary {
 /** Probabilities reported by `summarisePowerStats`. */
 export const CCDF_PROBABILITIES = [1e-1, 1e-2, 1e-3, 1e-4, 1e-5, 1e-6] as const;
 
+/**
+ * Mean, peak, crest factor and CCDF points of the accumulated record.
+ * @param probabilities CCDF probabilities to report (default 1e-1 … 1e-6)
+ */
 export function summarisePowerStats(stats: PowerStats, probabilities: readonly number[] = CCDF_PROBABILITIES): PowerSummary {
   const mean = stats.numSamples > 0 ? stats.sumPower / stats.numSamples : 0;
   const rmsDb = 10 * Math.log10(mean);
