@@ -54,3 +54,13 @@ export function attachSpectrumShaping(
     return { ...block, shaping: { plan, subcarriers } };
   });
 }
+
+/**
+ * Extra bandwidth spectrum shaping occupies beyond the configured allocation, Hz: Σ over blocks of E·Δf
+ * (0 without extension or without shaping).
+ */
+export function shapingExtraBandwidthHz(blocks: readonly AllocationPlan[], numerology: Numerology): number {
+  let extra = 0;
+  for (const b of blocks) extra += (b.shaping?.plan.extensionSubcarriers ?? 0) * numerology.subcarrierSpacingHz;
+  return extra;
+}

@@ -8,6 +8,7 @@ import {
   createSpectrumShapingPlan,
   raisedCosineSpectrum,
 } from '../../../src/dsp/shaping/spectrumShaping';
+import { shapingExtraBandwidthHz } from '../../../src/dsp/shaping/blockShaping';
 import { measureGridEvm } from '../../../src/dsp/txcheck/gridEvm';
 import { RE_DATA, generateWaveform } from '../../../src/dsp/waveform/waveformGenerator';
 import { expectCloseArray } from '../../helpers/expectClose';
@@ -75,6 +76,8 @@ describe('frequency-domain spectrum shaping for DFT-s-OFDM', () => {
       for (let g = 0; g < shaped.numGridSubcarriers; g++) if (shaped.gridKinds[g] === RE_DATA) used++;
       expect(used).toBe(180);
       expect(block.dataSubcarriers.length).toBe(144);
+      // 36 × 30 kHz = 1.08 MHz of extra occupied bandwidth.
+      expect(shapingExtraBandwidthHz(shaped.plan.allocations, shaped.plan.numerology)).toBe(36 * 30e3);
       // Known-timing EVM after matched combining: the data come back exactly.
       expect(measureGridEvm(shaped.plan, shaped.symbolLayout, shaped.gridIq, shaped.waveformIq).evmRmsPercent).toBeLessThan(1e-9);
     }
