@@ -1,4 +1,5 @@
 import { DspError } from '../dsp/errors';
+import { ExportCancelledError } from './streamExport';
 
 /** Exit code for a user error (bad configuration, bad file): the message says what to fix. */
 export const EXIT_USER_ERROR = 2;
@@ -18,7 +19,7 @@ export const EXIT_INTERNAL_ERROR = 1;
 
 /** Prints an error for the person at the terminal and returns the exit code; stack traces only with verbose. */
 export function reportCliError(err: unknown, verbose: boolean, stderr: (line: string) => void): number {
-  if (err instanceof CancelledError) {
+  if (err instanceof CancelledError || err instanceof ExportCancelledError) {
     stderr(`crestline: ${err.message}`);
     return EXIT_CANCELLED;
   }

@@ -1,11 +1,15 @@
 import { Command, CommanderError } from 'commander';
 import { reportCliError } from './cliErrors';
+import { registerAnalyze } from './commands/analyze';
+import { registerBackoff } from './commands/backoff';
 import { registerGenerate } from './commands/generate';
+import { registerInspect } from './commands/inspect';
+import { registerLink } from './commands/link';
 import { registerMeasure } from './commands/measure';
 import { registerMerge } from './commands/merge';
 
 /** Every subcommand registers itself here; each lives in src/cli/commands/<name>.ts. */
-const COMMANDS: readonly ((program: Command, io: CliIo) => void)[] = [registerGenerate, registerMeasure, registerMerge];
+const COMMANDS: readonly ((program: Command, io: CliIo) => void)[] = [registerGenerate, registerInspect, registerAnalyze, registerLink, registerBackoff, registerMeasure, registerMerge];
 
 /** Where a command prints; tests pass their own. */
 export interface CliIo {

@@ -65,8 +65,8 @@ export function levelsFromHistogram(
   };
   const centreOrNull = (j: number): number | null => (j >= 1 && j <= histogram.numBins ? binCentreDb(histogram, j) : null);
   const tooShort: { key: string; needed: number }[] = [];
-  const levels = probabilities.map((p, i): LevelEstimate => {
-    const key = (LEVEL_KEYS[i] ?? String(p)) as LevelKey;
+  const levels = probabilities.map((p): LevelEstimate => {
+    const key = probabilityKey(p) as LevelKey;
     if (trials * p < MIN_EXPECTED_EXCEEDANCES) {
       tooShort.push({ key, needed: Math.ceil(MIN_EXPECTED_EXCEEDANCES / (p * scale)) });
       return { key, probability: p, levelDb: null, ci95Db: null };
@@ -89,6 +89,12 @@ export function levelsFromHistogram(
     );
   }
   return { levels, warnings };
+}
+
+/** JSON key of a probability: "1e-3" for the standard ones, the number's shortest form otherwise ("0.05"). */
+export function probabilityKey(probability: number): string {
+  const i = LEVEL_PROBABILITIES.indexOf(probability as (typeof LEVEL_PROBABILITIES)[number]);
+  return i >= 0 ? LEVEL_KEYS[i]! : String(probability);
 }
 
 /** A CCDF curve for plotting: P(X ≥ threshold) at each bin's lower edge, trimmed to where it leaves 1 and reaches 0. */

@@ -67,6 +67,7 @@ describe('CCDF levels with 95 % intervals', () => {
     const { levels } = levelsFromHistogram(h, { what: 'x', unit: 'values' }, [0.05, 0.01, 0.005]);
     // P(X > 0.00) = 0.01: above 0.05 → level 0.00 at p = 0.05 and at p = 0.01; at 0.005 the level is 10.00.
     expect(levels.map((l) => l.levelDb)).toEqual([0, 0, 10]);
+    expect(levels.map((l) => l.key)).toEqual(['0.05', '1e-2', '0.005']);
     const curve = ccdfCurve(h);
     expect(curve.thresholdDb[0]).toBe(-0.005);
     expect(curve.probability[0]).toBe(1);
