@@ -40,6 +40,7 @@ export interface LinkSimulationOptions {
   readonly windowAdvanceSamples?: number;
 }
 
+/** Totals of one Eb/N0 point over all drops. */
 export interface LinkPoint {
   readonly ebN0Db: number;
   readonly esN0Db: number;
@@ -54,6 +55,7 @@ export interface LinkPoint {
   readonly theoryBer: number | undefined;
 }
 
+/** A sweep's points and how it was run. */
 export interface LinkSimulationResult {
   readonly points: readonly LinkPoint[];
   readonly channelKnowledge: ChannelEstimationMode;
@@ -61,6 +63,10 @@ export interface LinkSimulationResult {
   readonly notes: readonly string[];
 }
 
+/**
+ * Runs the sweep described above.
+ * @throws DspError INVALID_CONFIG for a repeat count below 1
+ */
 export function runLinkSimulation(wave: GeneratedWaveform, options: LinkSimulationOptions): LinkSimulationResult {
   const plan = wave.plan;
   if (!Number.isInteger(options.repeats) || options.repeats < 1) {
