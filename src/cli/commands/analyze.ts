@@ -80,6 +80,7 @@ export function registerAnalyze(program: Command, io: CliIo): void {
               reported: report.reportedPosition,
             },
             perSymbolEvmPercent: report.perSymbolPercent.map(num),
+            perSubcarrierEvmPercent: report.perSubcarrierPercent.map(num),
             channelEstimation: report.channelEstimationNote,
             referenceSignals: plan.referenceSignals.description,
             datatype: rec.datatype,

@@ -148,6 +148,10 @@ export function runLinkSimulation(wave: GeneratedWaveform, options: LinkSimulati
     rsOn ? `channel estimated from the reference signals (${plan.referenceSignals.description})` : 'reference signals off: the receiver is given the simulated channel and noise variance (ideal channel knowledge)',
     `Eb/N0 counts data energy only; Es/N0 per data symbol over the useful symbol part; SNR over the sampled bandwidth ${(plan.sampleRateHz / 1e6).toFixed(2)} MHz`,
   ];
+  const offset = options.timingOffsetSamples ?? 0;
+  if (!rsOn && (offset !== Math.round(offset) || options.cfoHz)) {
+    notes.push('the ideal channel knowledge does not include the CFO or the fractional part of the timing offset: switch reference signals on to estimate them');
+  }
   return {
     channelKnowledge: knowledge,
     dopplerHz,
