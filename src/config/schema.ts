@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { MODULATIONS } from '../dsp/modulation/constellations';
+import { amplifierSchema, impairmentsSchema, paprReductionSchema, spectrumShapingSchema, windowingSchema } from './transmitterSchema';
 
 /**
  * The one description of a waveform, shared by the CLI, the worker and the UI. `parseWaveformConfig` (configParse.ts)
@@ -99,6 +100,12 @@ export const waveformConfigSchema = z
     referenceSignals: referenceSignalsSchema.optional(),
     /** Research numerology for standard "custom". */
     custom: customSchema.optional(),
+    /** Transmitter sub-objects (transmitterSchema.ts); each is off when absent. */
+    spectrumShaping: spectrumShapingSchema.optional(),
+    windowing: windowingSchema.optional(),
+    paprReduction: paprReductionSchema.optional(),
+    impairments: impairmentsSchema.optional(),
+    amplifier: amplifierSchema.optional(),
   })
   .strict();
 

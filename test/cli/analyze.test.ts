@@ -11,10 +11,10 @@ async function run(args: string[]) {
   return { code, out: out.join('\n'), err: err.join('\n') };
 }
 
-async function generated(cfg: object) {
+async function generated(cfg: object, extra: string[] = []) {
   const dir = mkdtempSync(join(tmpdir(), 'crestline-analyze-'));
   writeFileSync(join(dir, 'cfg.json'), JSON.stringify(cfg));
-  const g = await run(['generate', '--config', join(dir, 'cfg.json'), '--out', join(dir, 'rec')]);
+  const g = await run(['generate', '--config', join(dir, 'cfg.json'), '--out', join(dir, 'rec'), '--no-progress', ...extra]);
   expect(g.code, g.err).toBe(0);
   return dir;
 }
@@ -42,6 +42,32 @@ describe('crestline analyze', () => {
     expect(j.channelEstimation).toMatch(/reference signals/);
   });
 
+  // Integer datatypes (derived): rounding leaves |e| ≤ Δ/2 per component, Δ = 1/full-scale code, so at most Δ²/2 error
+  // power per sample; the FFT spreads it over N bins while a data element carries scale²·E_RE (E_RE = 1), so the error
+  // part of EVM is at most √(Δ²/2 / (N·scale²)), doubled for the channel estimate made from the same samples. Uniform
+  // rounding noise (Δ²/6 per sample, common practice) predicts the typical value, which the measurement must also reach.
+  for (const [format, fullScale] of [
+    ['sigmf-ci16', 32767],
+    ['sigmf-ci8', 127],
+  ] as const) {
+    it(`${format}: EVM below the quantisation bound of the datatype and near the uniform-noise value`, async () => {
+      const dir = await generated({ standard: 'lte', bandwidthMHz: 5, modulation: '16qam', referenceSignals: { enabled: true } }, ['--format', format]);
+      const meta = JSON.parse(readFileSync(join(dir, 'rec.sigmf-meta'), 'utf8'));
+      const scale = meta.global['crestline:scaling'].scaleLinear as number;
+      const r = await run(['analyze', '--config', join(dir, 'cfg.json'), '--iq', join(dir, 'rec'), '--json']);
+      expect(r.code, r.err).toBe(0);
+      const j = JSON.parse(r.out);
+      const delta = 1 / fullScale;
+      const n = 512;
+      const boundPercent = 100 * 2 * Math.sqrt(delta ** 2 / 2 / (n * scale ** 2));
+      const uniformPercent = 100 * Math.sqrt(delta ** 2 / 6 / (n * scale ** 2));
+      expect(j.datatype).toBe(format === 'sigmf-ci16' ? 'ci16_le' : 'ci8');
+      expect(j.evmRmsPercent).toBeLessThan(boundPercent);
+      expect(j.evmRmsPercent).toBeGreaterThan(0.8 * uniformPercent);
+      expect(j.ber).toBe(0);
+    });
+  }
+
   it('demodulates a data-only recording from the known grid and says so; prints a readable report without --json', async () => {
     const dir = await generated({ standard: 'nr', bandwidthMHz: 10, subcarrierSpacingKHz: 30, modulation: 'pi/2-bpsk' });
     const r = await run(['analyze', '--config', join(dir, 'cfg.json'), '--iq', join(dir, 'rec')]);
@@ -64,13 +90,14 @@ describe('crestline analyze', () => {
     const truncated = await run(['analyze', '--config', join(dir, 'cfg.json'), '--iq', join(dir, 'rec')]);
     expect(truncated.code).toBe(2);
     expect(truncated.err).toMatch(/not a whole number of cf32_le samples/);
+    writeFileSync(join(dir, 'rec.sigmf-data'), data);
 
     const damaged = Buffer.from(data);
     damaged[100] = damaged[100]! ^ 0xff;
     writeFileSync(join(dir, 'rec.sigmf-data'), damaged);
     const checksum = await run(['analyze', '--config', join(dir, 'cfg.json'), '--iq', join(dir, 'rec')]);
     expect(checksum.code).toBe(2);
-    expect(checksum.err).toMatch(/does not match core:sha512/);
+    expect(checksum.err).toMatch(/SHA-512 .* does not match/);
 
     const missing = await run(['analyze', '--config', join(dir, 'cfg.json'), '--iq', join(dir, 'nothing.sigmf-data')]);
     expect(missing.code).toBe(2);

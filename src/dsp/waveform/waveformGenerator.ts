@@ -4,6 +4,7 @@ import { DspError } from '../errors';
 import { bitsPerSymbol as bitsPerSymbolOf } from '../modulation/constellations';
 import { mapBitsToSymbols } from '../modulation/mapper';
 import { createDftSpreadPlan, spreadDft } from './transformPrecoding';
+import { applySpectrumShaping } from '../shaping/spectrumShaping';
 import { createOfdmWorkspace, ofdmModulateSymbol, symbolLengthValues, type OfdmWorkspace } from './ofdmModulator';
 import { createWaveformPlan, dataSubcarriersOf, symbolLayoutOf, type SymbolLayout, type WaveformPlan } from './waveformPlan';
 import type { FftPlan } from '../fft/fftPlan';
@@ -46,6 +47,7 @@ export function createWaveformGenerator(plan: WaveformPlan): WaveformGenerator {
   }
   const maxBlock = Math.max(...plan.allocations.map((a) => a.dataSubcarriers.length));
   const spreadIq = new Float64Array(2 * maxBlock);
+  const shapedIq = new Float64Array(2 * Math.max(...plan.allocations.map((a) => a.shaping?.subcarriers.length ?? 0)));
   const blockCounters = plan.allocations.map(() => 0);
   const k = plan.numerology.numGridSubcarriers;
   let next = 0;
@@ -92,9 +94,14 @@ export function createWaveformGenerator(plan: WaveformPlan): WaveformGenerator {
           blockCounters[blockIndex]! += m;
           let source: Float64Array = symbolsIq;
           if (plan.waveform === 'dft-s-ofdm') source = spreadDft(spreadPlans.get(m)!, symbolsIq, spreadIq.subarray(0, 2 * m));
+          let subcarriers = dataSubcarriers;
+          if (a.shaping) {
+            subcarriers = a.shaping.subcarriers;
+            source = applySpectrumShaping(a.shaping.plan, source, shapedIq.subarray(0, 2 * subcarriers.length));
+          }
           const amp = a.amplitudeLinear;
-          for (let i = 0; i < m; i++) {
-            const g = dataSubcarriers[i]!;
+          for (let i = 0; i < subcarriers.length; i++) {
+            const g = subcarriers[i]!;
             row[2 * g] = source[2 * i]! * amp;
             row[2 * g + 1] = source[2 * i + 1]! * amp;
             kinds[g] = RE_DATA;

@@ -5,6 +5,7 @@ import { resolveNumerology, type Numerology } from '../numerology/numerology';
 import { createReferenceSignalPlan, type ReferenceSignalPlan } from '../reference/referenceSignalPlan';
 import { resolveAllocations, type AllocationPlan } from './allocation';
 import { createOfdmPlan, type OfdmPlan } from './ofdmModulator';
+import { attachSpectrumShaping } from '../shaping/blockShaping';
 
 /** Layout of one OFDM symbol in the generated sample stream (all lengths at the output rate, oversampling included). */
 export interface SymbolLayout {
@@ -61,7 +62,7 @@ export function createWaveformPlan(config: WaveformConfig): WaveformPlan {
     });
   }
   const numerology = resolveNumerology(config);
-  const allocations = resolveAllocations(config, numerology, waveform);
+  const allocations = attachSpectrumShaping(resolveAllocations(config, numerology, waveform), config, numerology, waveform);
   const ofdm = createOfdmPlan(numerology, config.oversampling, config.carrierFrequencyHz);
   let dataSymbolsPerOfdmSymbol = 0;
   let bitsPerOfdmSymbol = 0;
