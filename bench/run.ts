@@ -1,0 +1,227 @@
+/**
+ * `npm run bench`: transform times, generator throughput and PAPR-CCDF Monte-Carlo throughput, in one run
+ * (sized for a 2-core machine, about a minute). Figures are printed, never asserted.
+ *
+ * numpy is a timing reference only, never a dependency of Crestline: when `python3 -c "import numpy"` works,
+ * bench/numpy_ccdf.py does the same CCDF work vectorised and the table shows Crestline/numpy; otherwise that column
+ * is skipped.
+ */
+import { spawnSync } from 'node:child_process';
+import os from 'node:os';
+import { Worker } from 'node:worker_threads';
+import FFT from 'fft.js';
+import { parseWaveformConfig } from '../src/config/configParse';
+import { f32FftBackendName, getF32Transform, isF32FftSize, loadF32Fft } from '../src/dsp/fft/f32Fft';
+import { createFftPlan, fftForward, ifftRaw } from '../src/dsp/fft/fftPlan';
+import { createWaveformGenerator } from '../src/dsp/waveform/waveformGenerator';
+import { createWaveformPlan } from '../src/dsp/waveform/waveformPlan';
+import type { CcdfJob, CcdfJobResult } from './ccdfWorker';
+import { levelAtProbabilityDb, NUM_BINS } from './paprHistogram';
+import { bestMicros, fmt, printTable } from './timing';
+
+const quick = process.argv.includes('--quick');
+const CCDF_MS = quick ? 250 : 600;
+const CCDF_ROUNDS = quick ? 1 : 3;
+const NUMPY_SYMBOLS = quick ? 4000 : 12000;
+
+function randomIq(n: number, seed: number): Float64Array {
+  const out = new Float64Array(2 * n);
+  let s = seed;
+  for (let i = 0; i < out.length; i++) {
+    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+    out[i] = s / 2 ** 32 - 0.5;
+  }
+  return out;
+}
+
+function bareFftJsMicros(n: number): number {
+  const f = new FFT(n);
+  const input = randomIq(n, n) as unknown as number[];
+  const out = f.createComplexArray() as number[];
+  return bestMicros(() => f.transform(out, input));
+}
+
+function pffftMicros(n: number): number | null {
+  const t = getF32Transform(n);
+  if (!t) return null;
+  t.input().set(randomIq(n, n + 1));
+  t.owner = 'bench';
+  return bestMicros(() => t.run('backward', true));
+}
+
+function transformsSection(bare: Map<number, number>): void {
+  console.log('\n1. Transforms: µs per complex transform (warm, best of 7 rounds)');
+  const rows: string[][] = [];
+  for (const n of [128, 256, 512, 1024, 1536, 2048, 4096, 8192, 1200, 300]) {
+    const plan = createFftPlan(n);
+    const input = randomIq(n, 7 * n);
+    const out = new Float64Array(2 * n);
+    const forward = bestMicros(() => fftForward(plan, input, out));
+    const inverse = bestMicros(() => ifftRaw(plan, input, out));
+    const fftJs = bare.get(n) ?? null;
+    rows.push([
+      String(n),
+      plan.method,
+      fmt(forward, 8),
+      fmt(inverse, 8),
+      fmt(fftJs, 8),
+      fftJs ? fmt(forward / fftJs, 6, 2) : '—',
+      fmt(pffftMicros(n), 8),
+    ]);
+  }
+  printTable(['size', 'method', 'fftForward', 'ifftRaw', 'fft.js', 'ours/fft.js', `pffft f32${isF32FftSize(300) ? '' : ' (16·2^a3^b5^c only)'}`], rows);
+}
+
+function generatorSection(bare: Map<number, number>): void {
+  console.log('\n2. Waveform generation: createWaveformGenerator(plan).generate(14), LTE 20 MHz, f64 (fft.js) — pipeline time / bare fft.js time');
+  const rows: string[][] = [];
+  for (const [label, input] of [
+    ['uplink DFT-s-OFDM QPSK', { link: 'uplink', waveform: 'dft-s-ofdm' }],
+    ['downlink OFDM QPSK', { link: 'downlink', waveform: 'ofdm' }],
+  ] as const) {
+    for (const oversampling of [1, 4]) {
+      const plan = createWaveformPlan(parseWaveformConfig({ ...input, oversampling, symbols: 14 }));
+      const generator = createWaveformGenerator(plan);
+      const perSymbol = bestMicros(() => generator.generate(14), 5, 40) / 14;
+      const n = plan.ofdm.ifftSize;
+      const fftJs = bare.get(n) ?? bareFftJsMicros(n);
+      rows.push([label, String(oversampling), fmt(1e6 / perSymbol, 8), fmt(perSymbol, 7), `${n}: ${fmt(fftJs, 0).trim()}`, fmt(perSymbol / fftJs, 5, 2)]);
+    }
+  }
+  printTable(['configuration', 'os', 'symbols/s', 'µs/symbol', 'bare fft.js µs', 'ratio'], rows);
+}
+
+interface Pool {
+  workers: Worker[];
+  backend: string | null;
+}
+
+async function startPool(size: number): Promise<Pool> {
+  const file = new URL('./ccdfWorker.ts', import.meta.url).href;
+  // Workers load tsx themselves: worker_threads do not inherit the TypeScript loader of `tsx bench/run.ts`.
+  const code = `import('tsx/esm/api').then((api) => { api.register(); return import(${JSON.stringify(file)}); });`;
+  const workers: Worker[] = [];
+  let backend: string | null = null;
+  for (let i = 0; i < size; i++) {
+    const w = new Worker(code, { eval: true });
+    backend = await new Promise<string | null>((resolve, reject) => {
+      w.once('message', (m: { backend: string | null }) => resolve(m.backend));
+      w.once('error', reject);
+    });
+    workers.push(w);
+  }
+  return { workers, backend };
+}
+
+function runJob(w: Worker, job: CcdfJob): Promise<CcdfJobResult> {
+  return new Promise((resolve, reject) => {
+    w.once('message', resolve);
+    w.once('error', reject);
+    w.postMessage(job);
+  });
+}
+
+/** Symbols/s of `numWorkers` workers running the same job on their shares of the blocks, and the merged histogram. */
+async function ccdfRate(pool: Pool, config: unknown, precision: 'f64' | 'f32', numWorkers: number, durationMs: number) {
+  const jobs = pool.workers.slice(0, numWorkers).map((w, workerIndex) =>
+    runJob(w, { config, precision, durationMs, symbolsPerBlock: 8, runSeed: 20261201, workerIndex, numWorkers }),
+  );
+  const results = await Promise.all(jobs);
+  const histogram = new Float64Array(NUM_BINS);
+  let symbols = 0;
+  let elapsedMs = 0;
+  for (const r of results) {
+    symbols += r.symbols;
+    elapsedMs = Math.max(elapsedMs, r.elapsedMs);
+    for (let i = 0; i < NUM_BINS; i++) histogram[i]! += r.histogram[i]!;
+  }
+  return { rate: (symbols * 1000) / elapsedMs, histogram };
+}
+
+function numpyAvailable(): string | null {
+  const probe = spawnSync('python3', ['-c', 'import numpy; print(numpy.__version__)'], { encoding: 'utf8' });
+  return probe.status === 0 ? probe.stdout.trim() : null;
+}
+
+function numpyRate(waveform: string): { rate: number; level: number } | null {
+  const run = spawnSync('python3', ['bench/numpy_ccdf.py', '--waveform', waveform, '--symbols', String(NUMPY_SYMBOLS)], { encoding: 'utf8' });
+  if (run.status !== 0) return null;
+  const result = JSON.parse(run.stdout.trim().split('\n').pop()!) as { symbolsPerSecond: number; 'paprDbAt1e-2': number };
+  return { rate: result.symbolsPerSecond, level: result['paprDbAt1e-2'] };
+}
+
+async function ccdfSection(bare: Map<number, number>): Promise<void> {
+  const numpyVersion = numpyAvailable();
+  const pool = await startPool(2);
+  const fftJsRate = 1e6 / bare.get(8192)!;
+  console.log(
+    `\n3. PAPR CCDF Monte-Carlo, LTE 20 MHz QPSK, oversampling 4 (8192-point IFFT, 1200 subcarriers): power source + per-symbol peak/mean/PAPR histogram;` +
+      ` worker_threads, blocks of 8 symbols, best of ${CCDF_ROUNDS} rounds of ${CCDF_MS} ms; f32 backend in workers: ${pool.backend ?? 'none (f32 runs f64)'}`,
+  );
+  console.log(
+    numpyVersion
+      ? `   numpy ${numpyVersion} (reference only, never a dependency): bench/numpy_ccdf.py, same work vectorised in f64, batches of 16 symbols, ${NUMPY_SYMBOLS} symbols per round, one thread.`
+      : '   numpy not found (python3 -c "import numpy" failed): the Crestline/numpy column is skipped. numpy is only a timing reference.',
+  );
+  const cases = [
+    { label: 'OFDM (downlink)', waveform: 'ofdm', config: { link: 'downlink', waveform: 'ofdm', oversampling: 4 } },
+    { label: 'DFT-s-OFDM (uplink)', waveform: 'dft-s-ofdm', config: { link: 'uplink', waveform: 'dft-s-ofdm', oversampling: 4 } },
+  ];
+  const variants = [
+    { precision: 'f32', workers: 1 },
+    { precision: 'f32', workers: 2 },
+    { precision: 'f64', workers: 1 },
+    { precision: 'f64', workers: 2 },
+  ] as const;
+  // Warm-up: JIT and WASM compilation in both workers, for every configuration.
+  for (const c of cases) for (const v of variants) await ccdfRate(pool, c.config, v.precision, 2, 150);
+  const best = new Map<string, { rate: number; histogram: Float64Array }>();
+  const bestNumpy = new Map<string, { rate: number; level: number }>();
+  for (let round = 0; round < CCDF_ROUNDS; round++) {
+    for (const c of cases) {
+      for (const v of variants) {
+        const key = `${c.waveform}/${v.precision}/${v.workers}`;
+        const r = await ccdfRate(pool, c.config, v.precision, v.workers, CCDF_MS);
+        if (!best.has(key) || r.rate > best.get(key)!.rate) best.set(key, r);
+      }
+      if (numpyVersion) {
+        const r = numpyRate(c.waveform);
+        if (r && (!bestNumpy.has(c.waveform) || r.rate > bestNumpy.get(c.waveform)!.rate)) bestNumpy.set(c.waveform, r);
+      }
+    }
+  }
+  await Promise.all(pool.workers.map((w) => w.terminate()));
+  const rows: string[][] = [];
+  for (const c of cases) {
+    const np = bestNumpy.get(c.waveform);
+    for (const v of variants) {
+      const r = best.get(`${c.waveform}/${v.precision}/${v.workers}`)!;
+      rows.push([
+        c.label,
+        v.precision,
+        String(v.workers),
+        fmt(r.rate, 8),
+        fmt(r.rate / fftJsRate, 6, 2),
+        np ? fmt(r.rate / np.rate, 6, 2) : '—',
+        levelAtProbabilityDb(r.histogram, 1e-2).toFixed(2),
+      ]);
+    }
+    if (np) rows.push([`${c.label} numpy`, 'f64', '1', fmt(np.rate, 8), fmt(np.rate / fftJsRate, 6, 2), '1.00', np.level.toFixed(2)]);
+  }
+  console.log(`   bare fft.js 8192-point rate: ${fmt(fftJsRate, 0).trim()} transforms/s (${fmt(bare.get(8192)!, 0).trim()} µs each)`);
+  printTable(['waveform', 'precision', 'workers', 'symbols/s', '÷ fft.js 8192/s', 'Crestline/numpy', 'PAPR@1e-2 dB'], rows);
+}
+
+async function main(): Promise<void> {
+  const loaded = await loadF32Fft([() => import('@echogarden/pffft-wasm/simd'), () => import('@echogarden/pffft-wasm')]);
+  console.log(
+    `Crestline bench — Node ${process.version}, ${os.cpus().length} CPU (${os.cpus()[0]?.model ?? 'unknown'}), f32 FFT: ${f32FftBackendName() ?? `none (${loaded.failures.join('; ')})`}`,
+  );
+  const bare = new Map<number, number>();
+  for (const n of [128, 256, 512, 1024, 2048, 4096, 8192]) bare.set(n, bareFftJsMicros(n));
+  transformsSection(bare);
+  generatorSection(bare);
+  await ccdfSection(bare);
+}
+
+await main();
