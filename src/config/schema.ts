@@ -5,7 +5,7 @@ import { MODULATIONS } from '../dsp/modulation/constellations';
  * The one description of a waveform, shared by the CLI, the worker and the UI. `parseWaveformConfig` (configParse.ts)
  * applies it, then checks what depends on several fields (numerology, allocations, DFT sizes).
  */
-const modulationSchema = z.enum(MODULATIONS as unknown as [string, ...string[]], {
+const modulationSchema = z.enum(MODULATIONS, {
   error: `must be one of ${MODULATIONS.join(', ')}`,
 });
 

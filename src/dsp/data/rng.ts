@@ -29,15 +29,23 @@ export function deriveBlockSeed(runSeed: number, blockIndex: number): number {
   return splitmix32(splitmix32(runSeed >>> 0) ^ splitmix32((blockIndex + 0x6a09e667) >>> 0));
 }
 
-/** Creates a generator from an integer seed (any safe integer; only its low 32 bits and high bits mixed in). */
+/** Creates a generator from an integer seed (any safe integer; its low and high 32-bit halves are both mixed in). */
 export function createRng(seed: number): Rng {
   const lo = seed >>> 0;
   const hi = Math.floor(seed / 4294967296) >>> 0;
-  let s0 = splitmix32(lo ^ 0x243f6a88);
-  let s1 = splitmix32(s0 ^ hi);
-  let s2 = splitmix32(s1 ^ 0x85a308d3);
-  let s3 = splitmix32(s2 ^ 0x13198a2e);
-  if ((s0 | s1 | s2 | s3) === 0) s0 = 1;
+  const s0 = splitmix32(lo ^ 0x243f6a88);
+  const s1 = splitmix32(s0 ^ hi);
+  const s2 = splitmix32(s1 ^ 0x85a308d3);
+  const s3 = splitmix32(s2 ^ 0x13198a2e);
+  return createRngFromState(s0 | s1 | s2 | s3 ? s0 : 1, s1, s2, s3);
+}
+
+/** A generator started from an explicit xoshiro128** state (not all zero); for reference-vector tests. */
+export function createRngFromState(state0: number, state1: number, state2: number, state3: number): Rng {
+  let s0 = state0 >>> 0;
+  let s1 = state1 >>> 0;
+  let s2 = state2 >>> 0;
+  let s3 = state3 >>> 0;
   let spare = 0;
   let hasSpare = false;
 

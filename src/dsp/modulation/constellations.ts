@@ -3,9 +3,9 @@ import { DspError } from '../errors';
 /**
  * Modulation schemes of TS 38.211 §5.1 (the same points as the tables of TS 36.211 §7.1).
  */
-export type Modulation = 'bpsk' | 'pi/2-bpsk' | 'qpsk' | '16qam' | '64qam' | '256qam' | '1024qam';
+export const MODULATIONS = ['bpsk', 'pi/2-bpsk', 'qpsk', '16qam', '64qam', '256qam', '1024qam'] as const;
 
-export const MODULATIONS: readonly Modulation[] = ['bpsk', 'pi/2-bpsk', 'qpsk', '16qam', '64qam', '256qam', '1024qam'];
+export type Modulation = (typeof MODULATIONS)[number];
 
 /** Bits carried by one symbol. */
 export function bitsPerSymbol(modulation: Modulation): number {

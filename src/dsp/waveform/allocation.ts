@@ -56,7 +56,7 @@ export function resolveAllocations(config: WaveformConfig, numerology: Numerolog
       );
     }
     const numData = span / q;
-    const modulation = (b.modulation ?? config.modulation) as Modulation;
+    const modulation: Modulation = b.modulation ?? config.modulation;
     if (waveform === 'dft-s-ofdm') checkDftSpreadSize(numData, b.numRb, where, config.mapping);
     if (modulation === 'pi/2-bpsk' && waveform !== 'dft-s-ofdm') {
       throw new DspError('INVALID_CONFIG', `${where}: π/2-BPSK is used only with transform precoding (TS 38.211 §6.3.1.2): set waveform "dft-s-ofdm".`, {

@@ -1,0 +1,63 @@
+/**
+ * The configuration being edited. `draft` is what the form holds; every change is checked against
+ * the schema at once. A draft that passes becomes `submittedDraft` (a new object each time), which
+ * the engine controller sends to the worker; engine-side issues come back through `setEngineIssues`.
+ */
+import type { StateCreator } from 'zustand';
+import type { ConfigIssue } from '../../config/configParse';
+import type { Scenario } from '../../scenarios/demoScenario';
+import { checkDraftAgainstSchema, issuesByPath, type ConfigDraft } from './configValidation';
+import type { AppState } from './store';
+
+export interface ConfigSlice {
+  scenarioName: string;
+  scenarioDescription: string;
+  draft: ConfigDraft;
+  /** Messages by dotted field path, from the schema check or from the engine. */
+  fieldErrors: Readonly<Record<string, string>>;
+  /** The latest schema-valid draft, for the engine; unchanged while the draft is invalid. */
+  submittedDraft: ConfigDraft | null;
+  loadScenario(scenario: Scenario): void;
+  /** Sets a top-level field; `undefined` removes it so the schema default applies. */
+  setField(key: string, value: unknown): void;
+  setEngineIssues(issues: readonly ConfigIssue[]): void;
+  /** Sends the submitted draft again (e.g. after the worker crashed). */
+  resubmit(): void;
+}
+
+/** Fields that only mean something for some standards, dropped when the standard changes. */
+function withoutStaleFields(draft: Record<string, unknown>, key: string, value: unknown): void {
+  if (key === 'standard' && value !== 'nr') delete draft.subcarrierSpacingKHz;
+}
+
+function applyDraft(
+  draft: ConfigDraft,
+): Pick<ConfigSlice, 'draft' | 'fieldErrors'> & Partial<Pick<ConfigSlice, 'submittedDraft'>> {
+  const issues = checkDraftAgainstSchema(draft);
+  if (issues.length > 0) return { draft, fieldErrors: issuesByPath(issues) };
+  return { draft, fieldErrors: {}, submittedDraft: draft };
+}
+
+export const createConfigSlice: StateCreator<AppState, [], [], ConfigSlice> = (set) => ({
+  scenarioName: '',
+  scenarioDescription: '',
+  draft: {},
+  fieldErrors: {},
+  submittedDraft: null,
+  loadScenario: (scenario) =>
+    set({
+      scenarioName: scenario.name,
+      scenarioDescription: scenario.description,
+      ...applyDraft(structuredClone(scenario.config) as ConfigDraft),
+    }),
+  setField: (key, value) =>
+    set((state) => {
+      const next: Record<string, unknown> = { ...state.draft };
+      if (value === undefined) delete next[key];
+      else next[key] = value;
+      withoutStaleFields(next, key, value);
+      return applyDraft(next);
+    }),
+  setEngineIssues: (issues) => set({ fieldErrors: issuesByPath(issues) }),
+  resubmit: () => set((state) => (state.submittedDraft === null ? {} : { submittedDraft: { ...state.submittedDraft } })),
+});

@@ -1,0 +1,19 @@
+/**
+ * The workbench store: the config, results and view slices merged into one vanilla zustand store,
+ * so its logic runs (and is tested) without React. Components read it through useAppStore.
+ */
+import { createStore, type StoreApi } from 'zustand/vanilla';
+import { createConfigSlice, type ConfigSlice } from './configSlice';
+import { createResultsSlice, type ResultsSlice } from './resultsSlice';
+import { createViewSlice, type ViewSlice } from './viewSlice';
+
+export type AppState = ConfigSlice & ResultsSlice & ViewSlice;
+export type AppStore = StoreApi<AppState>;
+
+export function createAppStore(): AppStore {
+  return createStore<AppState>()((...args) => ({
+    ...createConfigSlice(...args),
+    ...createResultsSlice(...args),
+    ...createViewSlice(...args),
+  }));
+}

@@ -1,0 +1,169 @@
+/**
+ * The worker's message handling, kept apart from `self` so it runs under Node in the unit tests.
+ *
+ * It does no DSP of its own: it checks each message, validates the configuration with the zod
+ * schema (parseWaveformConfig), calls generateWaveform and posts the result with its buffers
+ * transferred. The newest request wins: requests are queued for one task turn, and a generate
+ * request that a newer one has overtaken, or that was cancelled, is dropped unanswered (the client
+ * has already settled it).
+ */
+import { parseWaveformConfig } from '../config/configParse';
+import { DspError } from '../dsp/errors';
+import { generateWaveform, type GeneratedWaveform } from '../dsp/waveform/waveformGenerator';
+import type { WaveformPlan } from '../dsp/waveform/waveformPlan';
+import {
+  isWorkerRequest,
+  PROTOCOL_VERSION,
+  waveformBufferKeys,
+  type ErrorResponse,
+  type GenerateRequest,
+  type GeneratedResponse,
+  type WaveformBuffers,
+  type WaveformMeta,
+  type WaveformPlanSummary,
+  type WorkerResponse,
+} from './protocol';
+
+export interface EngineDispatchHost {
+  /** Posts a response, moving the listed buffers. */
+  post(message: WorkerResponse, transfer: Transferable[]): void;
+  /** Runs `task` after the messages already queued (setTimeout(0) in the worker). */
+  schedule(task: () => void): void;
+  /** Milliseconds from a monotonic clock (performance.now()). */
+  now(): number;
+}
+
+/** Returns the buffer behind `view` if the view spans all of it, else a copy's buffer, so it can be transferred alone. */
+function toOwnBuffer(view: ArrayBufferView, alreadyMoved: Set<ArrayBufferLike>): ArrayBuffer {
+  const { buffer } = view;
+  const spansBuffer = view.byteOffset === 0 && view.byteLength === buffer.byteLength;
+  if (spansBuffer && buffer instanceof ArrayBuffer && !alreadyMoved.has(buffer)) {
+    alreadyMoved.add(buffer);
+    return buffer;
+  }
+  const copy = new Uint8Array(view.byteLength);
+  copy.set(new Uint8Array(buffer, view.byteOffset, view.byteLength));
+  return copy.buffer;
+}
+
+export function errorResponse(id: number, error: unknown): ErrorResponse {
+  if (error instanceof DspError) {
+    const response: ErrorResponse = {
+      type: 'error',
+      id,
+      protocolVersion: PROTOCOL_VERSION,
+      code: error.code,
+      message: error.message,
+    };
+    if (error.details !== undefined) response.details = error.details;
+    return response;
+  }
+  const reason = error instanceof Error ? `${error.name}: ${error.message}` : String(error);
+  return {
+    type: 'error',
+    id,
+    protocolVersion: PROTOCOL_VERSION,
+    code: 'INTERNAL',
+    message: `The engine failed unexpectedly (${reason}). This is a bug in Crestline; please report it with the configuration.`,
+  };
+}
+
+/** The plain-data part of a plan that the page needs (no FFT plans, index or phase tables). */
+export function summarizePlan(plan: WaveformPlan): WaveformPlanSummary {
+  return {
+    waveform: plan.waveform,
+    numerology: plan.numerology,
+    dataSymbolsPerOfdmSymbol: plan.dataSymbolsPerOfdmSymbol,
+    bitsPerOfdmSymbol: plan.bitsPerOfdmSymbol,
+    allocations: plan.allocations.map(({ dataSubcarriers, ...block }) => ({
+      ...block,
+      numDataSubcarriers: dataSubcarriers.length,
+    })),
+  };
+}
+
+/** Splits a waveform into its cloned metadata and its transferable buffers. */
+export function packWaveform(waveform: GeneratedWaveform): { meta: WaveformMeta; buffers: WaveformBuffers } {
+  const moved = new Set<ArrayBufferLike>();
+  const buffers = {} as WaveformBuffers;
+  for (const key of waveformBufferKeys) buffers[key] = toOwnBuffer(waveform[key], moved);
+  const meta: WaveformMeta = {
+    firstSymbol: waveform.firstSymbol,
+    numSymbols: waveform.numSymbols,
+    sampleRateHz: waveform.sampleRateHz,
+    numSamples: waveform.numSamples,
+    numGridSubcarriers: waveform.numGridSubcarriers,
+    symbolLayout: waveform.symbolLayout,
+    warnings: waveform.warnings,
+    summary: summarizePlan(waveform.plan),
+  };
+  return { meta, buffers };
+}
+
+function runGenerate(request: GenerateRequest, host: EngineDispatchHost): void {
+  const startMs = host.now();
+  let response: GeneratedResponse;
+  try {
+    const config = parseWaveformConfig(request.config);
+    const { meta, buffers } = packWaveform(generateWaveform(config));
+    response = {
+      type: 'generated',
+      id: request.id,
+      protocolVersion: PROTOCOL_VERSION,
+      config,
+      meta,
+      buffers,
+      elapsedMs: host.now() - startMs,
+    };
+  } catch (error) {
+    host.post(errorResponse(request.id, error), []);
+    return;
+  }
+  host.post(response, Object.values(response.buffers));
+}
+
+/** Creates the `onmessage` handler: call it with each `event.data`. */
+export function createEngineDispatcher(host: EngineDispatchHost): (data: unknown) => void {
+  const queue: GenerateRequest[] = [];
+  const cancelledIds = new Set<number>();
+  let newestGenerateId = -1;
+  let drainScheduled = false;
+
+  const drain = (): void => {
+    drainScheduled = false;
+    const batch = queue.splice(0, queue.length);
+    for (const request of batch) {
+      const stale = request.id !== newestGenerateId || cancelledIds.has(request.id);
+      cancelledIds.delete(request.id);
+      if (!stale) runGenerate(request, host);
+    }
+    // A cancel that arrived after its request ran would otherwise stay in the set for good.
+    for (const id of cancelledIds) if (id <= newestGenerateId) cancelledIds.delete(id);
+  };
+
+  return (data: unknown): void => {
+    if (!isWorkerRequest(data)) {
+      const id = typeof (data as { id?: unknown } | null)?.id === 'number' ? (data as { id: number }).id : -1;
+      host.post(errorResponse(id, new DspError('INTERNAL', 'The engine worker received a message it does not understand.')), []);
+      return;
+    }
+    if (data.protocolVersion !== PROTOCOL_VERSION) {
+      const message = `The page speaks engine protocol v${String(data.protocolVersion)} but this worker speaks v${PROTOCOL_VERSION}; reload the page.`;
+      host.post(errorResponse(data.id, new DspError('INTERNAL', message)), []);
+      return;
+    }
+    switch (data.type) {
+      case 'cancel':
+        cancelledIds.add(data.targetId);
+        return;
+      case 'generate':
+        newestGenerateId = Math.max(newestGenerateId, data.id);
+        queue.push(data);
+        if (!drainScheduled) {
+          drainScheduled = true;
+          host.schedule(drain);
+        }
+        return;
+    }
+  };
+}

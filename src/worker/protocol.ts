@@ -1,0 +1,156 @@
+/**
+ * Messages between the page and the engine worker (src/worker/engine.worker.ts).
+ *
+ * Every message is a member of a discriminated union on `type`, carries the `id` of the request it
+ * belongs to and the `protocolVersion` both sides were built with. Payloads are plain data; sample
+ * buffers travel as transferable ArrayBuffers (moved, not copied). Failures come back as
+ * `{ type: "error", id, code, message }`; client.ts rebuilds a DspError from them.
+ *
+ * To add a request: see DEVELOPERS.md, "Adding a worker request".
+ */
+import type { WaveformConfig } from '../config/schema';
+import type { DspErrorCode } from '../dsp/errors';
+import type { AllocationPlan } from '../dsp/waveform/allocation';
+import type { GeneratedWaveform } from '../dsp/waveform/waveformGenerator';
+import type { WaveformPlan } from '../dsp/waveform/waveformPlan';
+
+/** Bump when a message changes shape; a page and a worker from different builds then refuse each other. */
+export const PROTOCOL_VERSION = 1;
+export type ProtocolVersion = typeof PROTOCOL_VERSION;
+
+/** Id of the `ready` message the worker posts once at start-up (requests count from 1). */
+export const READY_ID = 0;
+
+interface Envelope<TType extends string> {
+  type: TType;
+  id: number;
+  protocolVersion: ProtocolVersion;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Requests (page -> worker)
+
+/** Generate a waveform from a raw configuration; the worker validates it with the zod schema. */
+export interface GenerateRequest extends Envelope<'generate'> {
+  /** Configuration input as the CLI reads it from JSON (defaults not yet applied). */
+  config: unknown;
+}
+
+/** Drop request `targetId` if the worker has not started it yet. */
+export interface CancelRequest extends Envelope<'cancel'> {
+  targetId: number;
+}
+
+export type WorkerRequest = GenerateRequest | CancelRequest;
+export type WorkerRequestType = WorkerRequest['type'];
+
+// ---------------------------------------------------------------------------------------------
+// A generated waveform as the page receives it
+
+/** One allocation block as resolved by the engine (its subcarrier index table stays in the worker). */
+export interface AllocationSummary extends Omit<AllocationPlan, 'dataSubcarriers'> {
+  /** Data subcarriers of the block per OFDM symbol (M_sc for DFT-s-OFDM). */
+  numDataSubcarriers: number;
+}
+
+/** What the page needs of a WaveformPlan; the plan's FFT plans and phase tables stay in the worker. */
+export interface WaveformPlanSummary extends Pick<
+  WaveformPlan,
+  'waveform' | 'numerology' | 'dataSymbolsPerOfdmSymbol' | 'bitsPerOfdmSymbol'
+> {
+  allocations: AllocationSummary[];
+}
+
+/** GeneratedWaveform with its plan replaced by the summary. */
+export interface EngineWaveform extends Omit<GeneratedWaveform, 'plan'> {
+  summary: WaveformPlanSummary;
+}
+
+/**
+ * Values of `gridKinds`, repeated here so the page can read the grid without loading engine code
+ * (test/worker/protocol.test.ts checks them against RE_EMPTY / RE_DATA / RE_REFERENCE).
+ */
+export const GRID_KIND = { empty: 0, data: 1, reference: 2 } as const;
+
+type TypedArray = Float64Array | Float32Array | Int32Array | Int16Array | Uint8Array;
+
+/** Keys of T whose values are typed arrays: these travel as transferable ArrayBuffers. */
+export type TypedArrayKeys<T> = { [K in keyof T]-?: T[K] extends TypedArray ? K : never }[keyof T];
+
+export type WaveformBufferKey = TypedArrayKeys<EngineWaveform>;
+
+/** The typed-array fields of an EngineWaveform, as raw buffers. */
+export type WaveformBuffers = { [K in WaveformBufferKey]: ArrayBuffer };
+
+/** Everything else in an EngineWaveform: structured-cloned. */
+export type WaveformMeta = Omit<EngineWaveform, WaveformBufferKey>;
+
+/**
+ * How each buffer is viewed again on the page. A Record over the derived key type, so a new
+ * typed-array field in GeneratedWaveform does not compile until it is listed here.
+ */
+export const waveformBufferViews: { [K in WaveformBufferKey]: new (buffer: ArrayBuffer) => EngineWaveform[K] } = {
+  waveformIq: Float64Array,
+  gridIq: Float64Array,
+  gridKinds: Uint8Array,
+  dataSymbolsIq: Float64Array,
+  bits: Uint8Array,
+};
+
+export const waveformBufferKeys = Object.keys(waveformBufferViews) as WaveformBufferKey[];
+
+// ---------------------------------------------------------------------------------------------
+// Responses (worker -> page)
+
+/** Posted once when the worker has loaded, so the page can check the protocol version. */
+export interface ReadyResponse extends Envelope<'ready'> {}
+
+export interface GeneratedResponse extends Envelope<'generated'> {
+  /** The configuration after validation, defaults applied. */
+  config: WaveformConfig;
+  meta: WaveformMeta;
+  buffers: WaveformBuffers;
+  /** Worker time for validation and generation, milliseconds. */
+  elapsedMs: number;
+}
+
+export interface ErrorResponse extends Envelope<'error'> {
+  code: DspErrorCode;
+  /** Written for the person at the form: field, value given, what is allowed. */
+  message: string;
+  /** DspError details (e.g. `issues: {path, message}[]` for INVALID_CONFIG). */
+  details?: Record<string, unknown>;
+}
+
+export type WorkerResponse = ReadyResponse | GeneratedResponse | ErrorResponse;
+export type WorkerResponseType = WorkerResponse['type'];
+
+/** The responses a request can be answered with. */
+export type ResponseFor<TRequest extends WorkerRequest> = TRequest extends GenerateRequest
+  ? GeneratedResponse | ErrorResponse
+  : never;
+
+// ---------------------------------------------------------------------------------------------
+// Guards (messages arrive as `unknown`)
+
+function isEnvelope(value: unknown): value is { type: unknown; id: unknown; protocolVersion: unknown } {
+  return typeof value === 'object' && value !== null && 'type' in value && 'id' in value && 'protocolVersion' in value;
+}
+
+const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel'];
+const responseTypes: readonly WorkerResponseType[] = ['ready', 'generated', 'error'];
+
+/** True when `value` looks like a request of a known type (its version is checked separately). */
+export function isWorkerRequest(value: unknown): value is WorkerRequest {
+  return (
+    isEnvelope(value) &&
+    typeof value.id === 'number' &&
+    requestTypes.includes(value.type as WorkerRequestType) &&
+    (value.type !== 'cancel' || typeof (value as { targetId?: unknown }).targetId === 'number')
+  );
+}
+
+/** True when `value` looks like a response of a known type (its version is checked separately). */
+export function isWorkerResponse(value: unknown): value is WorkerResponse {
+  return isEnvelope(value) && typeof value.id === 'number' && responseTypes.includes(value.type as WorkerResponseType);
+}
