@@ -9,7 +9,7 @@ Work per OFDM symbol (the same as the bench's Crestline workers do):
   unscaled IFFT, instantaneous power |x|^2, per-symbol peak and mean, PAPR = peak / mean,
   histogram of PAPR in 0.01 dB bins (0..20 dB), from which the CCDF follows.
 
-Usage: python3 bench/numpy_ccdf.py --waveform ofdm|dft-s-ofdm --symbols N [--oversampling 4] [--batch 64]
+Usage: python3 bench/numpy_ccdf.py --waveform ofdm|dft-s-ofdm --symbols N [--oversampling 4] [--batch 16] [--dtype complex128|complex64]
 Prints one JSON line: {"symbolsPerSecond": ..., "symbols": ..., "seconds": ..., "numpy": "<version>", "paprDbAt1e-2": ...}
 """
 import argparse
@@ -27,15 +27,15 @@ def lte20_bins(ifft_size, uplink):
     return np.mod(k, ifft_size)
 
 
-def run(waveform, num_symbols, oversampling, batch, seed):
+def run(waveform, num_symbols, oversampling, batch, seed, dtype):
     n = 2048 * oversampling
     spread = waveform == "dft-s-ofdm"
     bins = lte20_bins(n, uplink=spread)
     rng = np.random.default_rng(seed)
-    qpsk = (np.array([1 + 1j, 1 - 1j, -1 + 1j, -1 - 1j]) / np.sqrt(2)).astype(np.complex128)
+    qpsk = (np.array([1 + 1j, 1 - 1j, -1 + 1j, -1 - 1j]) / np.sqrt(2)).astype(dtype)
     edges_per_db = 100
     hist = np.zeros(20 * edges_per_db + 1, dtype=np.int64)
-    freq = np.zeros((batch, n), dtype=np.complex128)
+    freq = np.zeros((batch, n), dtype=dtype)
     done = 0
     start = time.perf_counter()
     while done < num_symbols:
@@ -59,6 +59,7 @@ def run(waveform, num_symbols, oversampling, batch, seed):
         "symbols": num_symbols,
         "seconds": seconds,
         "numpy": np.__version__,
+        "dtype": np.dtype(dtype).name,
         "paprDbAt1e-2": level,
     }
 
@@ -68,12 +69,14 @@ def main():
     parser.add_argument("--waveform", choices=["ofdm", "dft-s-ofdm"], default="ofdm")
     parser.add_argument("--symbols", type=int, default=20000)
     parser.add_argument("--oversampling", type=int, default=4)
-    parser.add_argument("--batch", type=int, default=64)
+    parser.add_argument("--batch", type=int, default=16)
+    parser.add_argument("--dtype", choices=["complex128", "complex64"], default="complex128")
     parser.add_argument("--seed", type=int, default=1)
     args = parser.parse_args()
     # Warm-up batch: numpy's FFT plan cache and the allocator.
-    run(args.waveform, args.batch, args.oversampling, args.batch, args.seed)
-    print(json.dumps(run(args.waveform, args.symbols, args.oversampling, args.batch, args.seed)))
+    dtype = np.complex128 if args.dtype == "complex128" else np.complex64
+    run(args.waveform, args.batch, args.oversampling, args.batch, args.seed, dtype)
+    print(json.dumps(run(args.waveform, args.symbols, args.oversampling, args.batch, args.seed, dtype)))
 
 
 if __name__ == "__main__":

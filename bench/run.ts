@@ -9,7 +9,6 @@
 import { spawnSync } from 'node:child_process';
 import os from 'node:os';
 import { Worker } from 'node:worker_threads';
-import FFT from 'fft.js';
 import { parseWaveformConfig } from '../src/config/configParse';
 import { f32FftBackendName, getF32Transform, isF32FftSize, loadF32Fft } from '../src/dsp/fft/f32Fft';
 import { createFftPlan, fftForward, ifftRaw } from '../src/dsp/fft/fftPlan';
@@ -34,11 +33,23 @@ function randomIq(n: number, seed: number): Float64Array {
   return out;
 }
 
-function bareFftJsMicros(n: number): number {
-  const f = new FFT(n);
-  const input = randomIq(n, n) as unknown as number[];
-  const out = f.createComplexArray() as number[];
-  return bestMicros(() => f.transform(out, input));
+/** Starts a bench worker from a TypeScript file (worker_threads do not inherit the tsx loader of `tsx bench/run.ts`). */
+function startTsWorker(fileName: string, workerData?: unknown): Worker {
+  const file = new URL(fileName, import.meta.url).href;
+  const code = `import('tsx/esm/api').then((api) => { api.register(); return import(${JSON.stringify(file)}); });`;
+  return new Worker(code, { eval: true, workerData });
+}
+
+/** Bare fft.js µs per forward transform for each size, measured in a separate worker (see fftJsWorker.ts). */
+function bareFftJsMicros(sizes: number[]): Promise<Map<number, number>> {
+  const w = startTsWorker('./fftJsWorker.ts', { sizes });
+  return new Promise((resolve, reject) => {
+    w.once('message', (micros: Record<number, number>) => {
+      void w.terminate();
+      resolve(new Map(sizes.map((n) => [n, micros[n]!])));
+    });
+    w.once('error', reject);
+  });
 }
 
 function pffftMicros(n: number): number | null {
@@ -84,7 +95,7 @@ function generatorSection(bare: Map<number, number>): void {
       const generator = createWaveformGenerator(plan);
       const perSymbol = bestMicros(() => generator.generate(14), 5, 40) / 14;
       const n = plan.ofdm.ifftSize;
-      const fftJs = bare.get(n) ?? bareFftJsMicros(n);
+      const fftJs = bare.get(n)!;
       rows.push([label, String(oversampling), fmt(1e6 / perSymbol, 8), fmt(perSymbol, 7), `${n}: ${fmt(fftJs, 0).trim()}`, fmt(perSymbol / fftJs, 5, 2)]);
     }
   }
@@ -97,13 +108,10 @@ interface Pool {
 }
 
 async function startPool(size: number): Promise<Pool> {
-  const file = new URL('./ccdfWorker.ts', import.meta.url).href;
-  // Workers load tsx themselves: worker_threads do not inherit the TypeScript loader of `tsx bench/run.ts`.
-  const code = `import('tsx/esm/api').then((api) => { api.register(); return import(${JSON.stringify(file)}); });`;
   const workers: Worker[] = [];
   let backend: string | null = null;
   for (let i = 0; i < size; i++) {
-    const w = new Worker(code, { eval: true });
+    const w = startTsWorker('./ccdfWorker.ts');
     backend = await new Promise<string | null>((resolve, reject) => {
       w.once('message', (m: { backend: string | null }) => resolve(m.backend));
       w.once('error', reject);
@@ -115,8 +123,12 @@ async function startPool(size: number): Promise<Pool> {
 
 function runJob(w: Worker, job: CcdfJob): Promise<CcdfJobResult> {
   return new Promise((resolve, reject) => {
-    w.once('message', resolve);
-    w.once('error', reject);
+    const onError = (err: Error) => reject(err);
+    w.once('error', onError);
+    w.once('message', (result: CcdfJobResult) => {
+      w.off('error', onError);
+      resolve(result);
+    });
     w.postMessage(job);
   });
 }
@@ -143,29 +155,39 @@ function numpyAvailable(): string | null {
   return probe.status === 0 ? probe.stdout.trim() : null;
 }
 
-function numpyRate(waveform: string): { rate: number; level: number } | null {
-  const run = spawnSync('python3', ['bench/numpy_ccdf.py', '--waveform', waveform, '--symbols', String(NUMPY_SYMBOLS)], { encoding: 'utf8' });
+function numpyRate(waveform: string, dtype: 'complex128' | 'complex64'): { rate: number; histogramLevel: number } | null {
+  const args = ['bench/numpy_ccdf.py', '--waveform', waveform, '--symbols', String(NUMPY_SYMBOLS), '--dtype', dtype];
+  const run = spawnSync('python3', args, { encoding: 'utf8' });
   if (run.status !== 0) return null;
   const result = JSON.parse(run.stdout.trim().split('\n').pop()!) as { symbolsPerSecond: number; 'paprDbAt1e-2': number };
-  return { rate: result.symbolsPerSecond, level: result['paprDbAt1e-2'] };
+  return { rate: result.symbolsPerSecond, histogramLevel: result['paprDbAt1e-2'] };
+}
+
+interface Row {
+  label: string;
+  precision: string;
+  workers: number;
+  rate: number;
+  level: number;
 }
 
 async function ccdfSection(bare: Map<number, number>): Promise<void> {
   const numpyVersion = numpyAvailable();
-  const pool = await startPool(2);
+  // One pool per precision: a worker that ran only one path keeps monomorphic JIT feedback, as a product worker would.
+  const pools = { f32: await startPool(2), f64: await startPool(2) };
   const fftJsRate = 1e6 / bare.get(8192)!;
   console.log(
     `\n3. PAPR CCDF Monte-Carlo, LTE 20 MHz QPSK, oversampling 4 (8192-point IFFT, 1200 subcarriers): power source + per-symbol peak/mean/PAPR histogram;` +
-      ` worker_threads, blocks of 8 symbols, best of ${CCDF_ROUNDS} rounds of ${CCDF_MS} ms; f32 backend in workers: ${pool.backend ?? 'none (f32 runs f64)'}`,
+      ` Node worker_threads, blocks of 8 symbols, best of ${CCDF_ROUNDS} interleaved rounds of ${CCDF_MS} ms; f32 backend in workers: ${pools.f32.backend ?? 'none (f32 runs f64)'}`,
   );
   console.log(
     numpyVersion
-      ? `   numpy ${numpyVersion} (reference only, never a dependency): bench/numpy_ccdf.py, same work vectorised in f64, batches of 16 symbols, ${NUMPY_SYMBOLS} symbols per round, one thread.`
-      : '   numpy not found (python3 -c "import numpy" failed): the Crestline/numpy column is skipped. numpy is only a timing reference.',
+      ? `   numpy ${numpyVersion} is a timing reference only, never a dependency: bench/numpy_ccdf.py does the same work vectorised (batches of 16 symbols, one thread, ${NUMPY_SYMBOLS} symbols a round); Crestline/numpy compares with numpy's default complex128.`
+      : '   numpy not found (python3 -c "import numpy" failed): the Crestline/numpy column is skipped. numpy is only a timing reference, never a dependency.',
   );
   const cases = [
-    { label: 'OFDM (downlink)', waveform: 'ofdm', config: { link: 'downlink', waveform: 'ofdm', oversampling: 4 } },
-    { label: 'DFT-s-OFDM (uplink)', waveform: 'dft-s-ofdm', config: { link: 'uplink', waveform: 'dft-s-ofdm', oversampling: 4 } },
+    { label: 'OFDM', waveform: 'ofdm', config: { link: 'downlink', waveform: 'ofdm', oversampling: 4 } },
+    { label: 'DFT-s-OFDM', waveform: 'dft-s-ofdm', config: { link: 'uplink', waveform: 'dft-s-ofdm', oversampling: 4 } },
   ];
   const variants = [
     { precision: 'f32', workers: 1 },
@@ -173,43 +195,51 @@ async function ccdfSection(bare: Map<number, number>): Promise<void> {
     { precision: 'f64', workers: 1 },
     { precision: 'f64', workers: 2 },
   ] as const;
-  // Warm-up: JIT and WASM compilation in both workers, for every configuration.
-  for (const c of cases) for (const v of variants) await ccdfRate(pool, c.config, v.precision, 2, 150);
+  // Warm-up: JIT and WASM compilation in every worker, for every configuration.
+  for (const c of cases) for (const p of ['f32', 'f64'] as const) await ccdfRate(pools[p], c.config, p, 2, 200);
   const best = new Map<string, { rate: number; histogram: Float64Array }>();
-  const bestNumpy = new Map<string, { rate: number; level: number }>();
+  const bestNumpy = new Map<string, { rate: number; histogramLevel: number }>();
   for (let round = 0; round < CCDF_ROUNDS; round++) {
     for (const c of cases) {
       for (const v of variants) {
         const key = `${c.waveform}/${v.precision}/${v.workers}`;
-        const r = await ccdfRate(pool, c.config, v.precision, v.workers, CCDF_MS);
+        const r = await ccdfRate(pools[v.precision], c.config, v.precision, v.workers, CCDF_MS);
         if (!best.has(key) || r.rate > best.get(key)!.rate) best.set(key, r);
       }
-      if (numpyVersion) {
-        const r = numpyRate(c.waveform);
-        if (r && (!bestNumpy.has(c.waveform) || r.rate > bestNumpy.get(c.waveform)!.rate)) bestNumpy.set(c.waveform, r);
+      if (!numpyVersion) continue;
+      for (const dtype of ['complex128', 'complex64'] as const) {
+        const key = `${c.waveform}/${dtype}`;
+        const r = numpyRate(c.waveform, dtype);
+        if (r && (!bestNumpy.has(key) || r.rate > bestNumpy.get(key)!.rate)) bestNumpy.set(key, r);
       }
     }
   }
-  await Promise.all(pool.workers.map((w) => w.terminate()));
-  const rows: string[][] = [];
+  await Promise.all([...pools.f32.workers, ...pools.f64.workers].map((w) => w.terminate()));
+  const table: string[][] = [];
   for (const c of cases) {
-    const np = bestNumpy.get(c.waveform);
-    for (const v of variants) {
+    const reference = bestNumpy.get(`${c.waveform}/complex128`);
+    const rows: Row[] = variants.map((v) => {
       const r = best.get(`${c.waveform}/${v.precision}/${v.workers}`)!;
-      rows.push([
-        c.label,
-        v.precision,
-        String(v.workers),
+      return { label: `${c.label} Crestline`, precision: v.precision, workers: v.workers, rate: r.rate, level: levelAtProbabilityDb(r.histogram, 1e-2) };
+    });
+    for (const dtype of ['complex128', 'complex64'] as const) {
+      const np = bestNumpy.get(`${c.waveform}/${dtype}`);
+      if (np) rows.push({ label: `${c.label} numpy ${dtype}`, precision: dtype === 'complex128' ? 'f64' : 'f32', workers: 1, rate: np.rate, level: np.histogramLevel });
+    }
+    for (const r of rows) {
+      table.push([
+        r.label,
+        r.precision,
+        String(r.workers),
         fmt(r.rate, 8),
         fmt(r.rate / fftJsRate, 6, 2),
-        np ? fmt(r.rate / np.rate, 6, 2) : '—',
-        levelAtProbabilityDb(r.histogram, 1e-2).toFixed(2),
+        reference ? fmt(r.rate / reference.rate, 6, 2) : '—',
+        r.level.toFixed(2),
       ]);
     }
-    if (np) rows.push([`${c.label} numpy`, 'f64', '1', fmt(np.rate, 8), fmt(np.rate / fftJsRate, 6, 2), '1.00', np.level.toFixed(2)]);
   }
   console.log(`   bare fft.js 8192-point rate: ${fmt(fftJsRate, 0).trim()} transforms/s (${fmt(bare.get(8192)!, 0).trim()} µs each)`);
-  printTable(['waveform', 'precision', 'workers', 'symbols/s', '÷ fft.js 8192/s', 'Crestline/numpy', 'PAPR@1e-2 dB'], rows);
+  printTable(['case', 'precision', 'workers', 'symbols/s', '÷ fft.js 8192/s', 'Crestline/numpy', 'PAPR@1e-2 dB'], table);
 }
 
 async function main(): Promise<void> {
@@ -217,8 +247,7 @@ async function main(): Promise<void> {
   console.log(
     `Crestline bench — Node ${process.version}, ${os.cpus().length} CPU (${os.cpus()[0]?.model ?? 'unknown'}), f32 FFT: ${f32FftBackendName() ?? `none (${loaded.failures.join('; ')})`}`,
   );
-  const bare = new Map<number, number>();
-  for (const n of [128, 256, 512, 1024, 2048, 4096, 8192]) bare.set(n, bareFftJsMicros(n));
+  const bare = await bareFftJsMicros([128, 256, 512, 1024, 2048, 4096, 8192]);
   transformsSection(bare);
   generatorSection(bare);
   await ccdfSection(bare);

@@ -15,8 +15,6 @@ export function createF64PowerSource(plan: WaveformPlan): PowerSource {
   const n = plan.ofdm.ifftSize;
   const freqIq = new Float64Array(2 * n);
   const timeIq = new Float64Array(2 * n);
-  const positionsRe = filler.binsInOrder.map((b) => 2 * b);
-  const positionsIm = filler.binsInOrder.map((b) => 2 * b + 1);
   return {
     samplesPerSymbol: n,
     expectedMeanPower: expectedMeanPowerOf(plan),
@@ -26,7 +24,7 @@ export function createF64PowerSource(plan: WaveformPlan): PowerSource {
       const reader = createRandomBitReader(blockSeed);
       reader.skip(firstSymbol * filler.bitsPerOfdmSymbol);
       for (let s = 0; s < numSymbols; s++) {
-        filler.fill(reader, firstSymbol + s, freqIq, positionsRe, positionsIm);
+        filler.fill64(reader, firstSymbol + s, freqIq);
         ifftRaw(plan.ofdm.fft, freqIq, timeIq);
         const base = s * n;
         for (let i = 0; i < n; i++) {

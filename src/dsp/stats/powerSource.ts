@@ -37,7 +37,7 @@ export interface PowerSourceOptions {
   /**
    * 'f64' (default): double precision through the engine's own transforms, equal to the generator to ~1e-12.
    * 'f32': single-precision WebAssembly FFT (see fft/f32Fft.ts) when one is installed and the IFFT size suits it;
-   * powers agree with f64 to 1e-5 of each symbol's peak, PAPR to 1e-3 dB (tested). Without a backend, or for sizes
+   * powers agree with f64 to 5e-6 of each symbol's peak, PAPR to 1e-4 dB (tested). Without a backend, or for sizes
    * it cannot do, 'f32' quietly runs the f64 path, which is only more exact.
    */
   precision?: 'f64' | 'f32';
