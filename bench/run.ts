@@ -10,7 +10,7 @@ import { spawnSync } from 'node:child_process';
 import os from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { parseWaveformConfig } from '../src/config/configParse';
-import { f32FftBackendName, getF32Transform, isF32FftSize, loadF32Fft } from '../src/dsp/fft/f32Fft';
+import { f32FftBackendName, getF32Transform, loadF32Fft } from '../src/dsp/fft/f32Fft';
 import { createFftPlan, fftForward, ifftRaw } from '../src/dsp/fft/fftPlan';
 import { createWaveformGenerator } from '../src/dsp/waveform/waveformGenerator';
 import { createWaveformPlan } from '../src/dsp/waveform/waveformPlan';
@@ -80,7 +80,8 @@ function transformsSection(bare: Map<number, number>): void {
       fmt(pffftMicros(n), 8),
     ]);
   }
-  printTable(['size', 'method', 'fftForward', 'ifftRaw', 'fft.js', 'ours/fft.js', `pffft f32${isF32FftSize(300) ? '' : ' (16·2^a3^b5^c only)'}`], rows);
+  printTable(['size', 'method', 'fftForward', 'ifftRaw', 'bare fft.js', 'ours/fft.js', 'PFFFT f32'], rows);
+  console.log('   PFFFT: backward, natural order; only sizes 16·2^a·3^b·5^c. ifftRaw of non-powers of two adds two conjugation passes.');
 }
 
 function generatorSection(bare: Map<number, number>): void {
@@ -245,7 +246,7 @@ async function ccdfSection(bare: Map<number, number>): Promise<void> {
 async function main(): Promise<void> {
   const loaded = await loadF32Fft([() => import('@echogarden/pffft-wasm/simd'), () => import('@echogarden/pffft-wasm')]);
   console.log(
-    `Crestline bench — Node ${process.version}, ${os.cpus().length} CPU (${os.cpus()[0]?.model ?? 'unknown'}), f32 FFT: ${f32FftBackendName() ?? `none (${loaded.failures.join('; ')})`}`,
+    `Crestline bench — Node ${process.version}, ${os.cpus().length} CPU (${os.cpus()[0]?.model ?? 'unknown'}), load average ${os.loadavg()[0]!.toFixed(2)}, f32 FFT: ${f32FftBackendName() ?? `none (${loaded.failures.join('; ')})`}`,
   );
   const bare = await bareFftJsMicros([128, 256, 512, 1024, 2048, 4096, 8192]);
   transformsSection(bare);
