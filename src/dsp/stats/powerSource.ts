@@ -24,7 +24,8 @@ export interface PowerSource {
   /**
    * Writes the power of symbols firstSymbol … firstSymbol + numSymbols − 1 of block `blockSeed`, symbol after symbol.
    * @param blockSeed seed of the block's random data (e.g. deriveBlockSeed(runSeed, blockIndex)); a safe integer ≥ 0
-   * @param firstSymbol index of the first symbol within the block (≥ 0; the data stream is skipped up to it)
+   * @param firstSymbol index of the first symbol within the block (≥ 0; the data stream is skipped up to it, one
+   *   generator step per 32 bits, so prefer blocks that start at 0)
    * @param outPower numSymbols · samplesPerSymbol values, linear power
    */
   fillSymbolPowers(blockSeed: number, firstSymbol: number, numSymbols: number, outPower: Float32Array | Float64Array): void;
