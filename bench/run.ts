@@ -19,9 +19,9 @@ import { levelAtProbabilityDb, NUM_BINS } from './paprHistogram';
 import { bestMicros, fmt, printTable } from './timing';
 
 const quick = process.argv.includes('--quick');
-const CCDF_MS = quick ? 250 : 600;
-const CCDF_ROUNDS = quick ? 1 : 3;
-const NUMPY_SYMBOLS = quick ? 4000 : 12000;
+const CCDF_MS = quick ? 250 : 400;
+const CCDF_ROUNDS = quick ? 1 : 5;
+const NUMPY_SYMBOLS = quick ? 4000 : 8000;
 
 function randomIq(n: number, seed: number): Float64Array {
   const out = new Float64Array(2 * n);

@@ -41,6 +41,8 @@ interface BlockState {
   /** The block's symbols (then, for f64 spreading, its spread values) in natural order, 2·numData values. */
   readonly symbolsIq: Float64Array;
   readonly spreadIq: Float64Array;
+  /** Scratch: the 4 QPSK points times the current gain. */
+  readonly scaledQpsk: Float64Array;
 }
 
 /** Prepares the filler for `plan` (its data source is ignored: bits come from the reader). */
@@ -62,6 +64,7 @@ export function createSubcarrierFiller(plan: WaveformPlan): SubcarrierFiller {
       spread32: spreading ? getF32Transform(numData) : null,
       symbolsIq: new Float64Array(2 * numData),
       spreadIq: new Float64Array(spreading ? 2 * numData : 0),
+      scaledQpsk: new Float64Array(8),
     };
   });
   const binsInOrder = new Int32Array(offset);
@@ -70,6 +73,9 @@ export function createSubcarrierFiller(plan: WaveformPlan): SubcarrierFiller {
   }
   const binRe = binsInOrder.map((b) => 2 * b);
   const binIm = binsInOrder.map((b) => 2 * b + 1);
+  const maxBlock = Math.max(...blocks.map((b) => b.numData));
+  const naturalRe = new Int32Array(maxBlock).map((_, i) => 2 * i);
+  const naturalIm = new Int32Array(maxBlock).map((_, i) => 2 * i + 1);
   return {
     bitsPerOfdmSymbol: plan.bitsPerOfdmSymbol,
     binsInOrder,
@@ -86,20 +92,21 @@ export function createSubcarrierFiller(plan: WaveformPlan): SubcarrierFiller {
     },
     fill32(reader, symbolIndex, target, positionsRe, positionsIm) {
       for (const b of blocks) {
-        mapRandomSymbols(reader, b, symbolIndex * b.numData, b.symbolsIq);
-        const gain = b.spread ? b.amplitude / Math.sqrt(b.numData) : b.amplitude;
+        const first = symbolIndex * b.numData;
         if (b.spread32) {
-          // Ordered output: reading it in natural order costs less than gathering the internal order.
+          // Symbols straight into PFFFT's natural-order input; the ordered output is read in natural order,
+          // which costs less than gathering the internal order.
           const t = b.spread32;
           t.owner = b;
-          t.input().set(b.symbolsIq);
+          mapRandomSymbolsTo32(reader, b, first, t.input(), naturalRe, naturalIm, 0, 1);
           t.run('forward', true);
-          scatter32To32(t.output(), target, positionsRe, positionsIm, b.offset, b.numData, gain);
+          scatter32To32(t.output(), target, positionsRe, positionsIm, b.offset, b.numData, b.amplitude / Math.sqrt(b.numData));
         } else if (b.spread) {
+          mapRandomSymbols(reader, b, first, b.symbolsIq);
           fftForward(b.spread, b.symbolsIq, b.spreadIq);
-          scatter64To32(b.spreadIq, target, positionsRe, positionsIm, b.offset, b.numData, gain);
+          scatter64To32(b.spreadIq, target, positionsRe, positionsIm, b.offset, b.numData, b.amplitude / Math.sqrt(b.numData));
         } else {
-          scatter64To32(b.symbolsIq, target, positionsRe, positionsIm, b.offset, b.numData, gain);
+          mapRandomSymbolsTo32(reader, b, first, target, positionsRe, positionsIm, b.offset, b.amplitude);
         }
       }
     },
@@ -114,7 +121,7 @@ function scatter64To64(from: Float64Array, to: Float64Array, toRe: Int32Array, t
   }
 }
 
-/** As scatter64To64, into a Float32Array. */
+/** As scatter64To64, into a Float32Array (spread values computed in f64). */
 function scatter64To32(from: Float64Array, to: Float32Array, toRe: Int32Array, toIm: Int32Array, o: number, n: number, gain: number): void {
   for (let i = 0; i < n; i++) {
     to[toRe[o + i]!] = from[2 * i]! * gain;
@@ -169,5 +176,56 @@ function mapRandomSymbols(reader: RandomBitReader, b: BlockState, firstIndex: nu
     }
     outIq[2 * i] = re;
     outIq[2 * i + 1] = im;
+  }
+}
+
+/**
+ * As mapRandomSymbols, times `gain`, straight into a Float32Array at target[toRe[o + i]], target[toIm[o + i]].
+ * NOTE: a second copy on purpose, so each copy's element accesses see one array type (see the file comment).
+ */
+function mapRandomSymbolsTo32(
+  reader: RandomBitReader,
+  b: BlockState,
+  firstIndex: number,
+  target: Float32Array,
+  toRe: Int32Array,
+  toIm: Int32Array,
+  o: number,
+  gain: number,
+): void {
+  const points = b.pointsIq;
+  const m = b.bitsPerSymbol;
+  const n = b.numData;
+  let i = 0;
+  if (m === 2) {
+    const q = b.scaledQpsk;
+    for (let k = 0; k < 8; k++) q[k] = points[k]! * gain;
+    while (n - i >= 16) {
+      const word = reader.takeAlignedWord();
+      if (word < 0) {
+        const index = reader.take(2);
+        target[toRe[o + i]!] = q[2 * index]!;
+        target[toIm[o + i]!] = q[2 * index + 1]!;
+        i++;
+        continue;
+      }
+      for (let s = 30; s >= 0; s -= 2, i++) {
+        const index = (word >>> s) & 3;
+        target[toRe[o + i]!] = q[2 * index]!;
+        target[toIm[o + i]!] = q[2 * index + 1]!;
+      }
+    }
+  }
+  for (; i < n; i++) {
+    const index = reader.take(m);
+    let re = points[2 * index]! * gain;
+    let im = points[2 * index + 1]! * gain;
+    if (b.pi2Bpsk && ((firstIndex + i) & 1) === 1) {
+      const t = re;
+      re = -im;
+      im = t;
+    }
+    target[toRe[o + i]!] = re;
+    target[toIm[o + i]!] = im;
   }
 }
