@@ -14,6 +14,6 @@ for (const n of sizes) {
   const data = f.createComplexArray() as number[];
   for (let i = 0; i < data.length; i++) data[i] = Math.sin(0.37 * i) + Math.cos(1.3 * i * i);
   const out = f.createComplexArray() as number[];
-  micros[n] = bestMicros(() => f.transform(out, data));
+  micros[n] = bestMicros(() => f.transform(out, data), 15, 25);
 }
 parentPort!.postMessage(micros);

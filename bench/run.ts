@@ -61,7 +61,7 @@ function pffftMicros(n: number): number | null {
 }
 
 function transformsSection(bare: Map<number, number>): void {
-  console.log('\n1. Transforms: µs per complex transform (warm, best of 7 rounds)');
+  console.log('\n1. Transforms: µs per complex transform (warm, best of 11 rounds)');
   const rows: string[][] = [];
   for (const n of [128, 256, 512, 1024, 1536, 2048, 4096, 8192, 1200, 300]) {
     const plan = createFftPlan(n);

@@ -1,7 +1,7 @@
 /** Timing helpers for the bench (wall clock, warm code, best round: noise on a shared machine only adds time). */
 
 /** Best per-call time in µs of `fn` over `rounds` rounds of at least `roundMs` each, after a warm-up. */
-export function bestMicros(fn: () => void, rounds = 7, roundMs = 25): number {
+export function bestMicros(fn: () => void, rounds = 11, roundMs = 25): number {
   const warmUntil = performance.now() + 3 * roundMs;
   let calls = 0;
   while (performance.now() < warmUntil || calls < 20) {
