@@ -22,6 +22,8 @@ const quick = process.argv.includes('--quick');
 const CCDF_MS = quick ? 250 : 400;
 const CCDF_ROUNDS = quick ? 1 : 5;
 const NUMPY_SYMBOLS = quick ? 4000 : 8000;
+/** Python for the numpy reference (BENCH_PYTHON overrides; point it at a missing file to see the skip). */
+const PYTHON = process.env.BENCH_PYTHON ?? 'python3';
 
 function randomIq(n: number, seed: number): Float64Array {
   const out = new Float64Array(2 * n);
@@ -184,13 +186,13 @@ async function ccdfRate(pool: Pool, config: unknown, precision: 'f64' | 'f32', n
 }
 
 function numpyAvailable(): string | null {
-  const probe = spawnSync('python3', ['-c', 'import numpy; print(numpy.__version__)'], { encoding: 'utf8' });
+  const probe = spawnSync(PYTHON, ['-c', 'import numpy; print(numpy.__version__)'], { encoding: 'utf8' });
   return probe.status === 0 ? probe.stdout.trim() : null;
 }
 
 function numpyRate(waveform: string, dtype: 'complex128' | 'complex64'): { rate: number; histogramLevel: number } | null {
   const args = ['bench/numpy_ccdf.py', '--waveform', waveform, '--symbols', String(NUMPY_SYMBOLS), '--dtype', dtype];
-  const run = spawnSync('python3', args, { encoding: 'utf8' });
+  const run = spawnSync(PYTHON, args, { encoding: 'utf8' });
   if (run.status !== 0) return null;
   const result = JSON.parse(run.stdout.trim().split('\n').pop()!) as { symbolsPerSecond: number; 'paprDbAt1e-2': number };
   return { rate: result.symbolsPerSecond, histogramLevel: result['paprDbAt1e-2'] };
@@ -217,7 +219,7 @@ async function ccdfSection(bare: Map<number, number>): Promise<void> {
   console.log(
     numpyVersion
       ? `   numpy ${numpyVersion} is a timing reference only, never a dependency: bench/numpy_ccdf.py does the same work vectorised (batches of 16 symbols, one thread, ${NUMPY_SYMBOLS} symbols a round); Crestline/numpy compares with numpy's default complex128.`
-      : '   numpy not found (python3 -c "import numpy" failed): the Crestline/numpy column is skipped. numpy is only a timing reference, never a dependency.',
+      : `   numpy not found (${PYTHON} -c "import numpy" failed): the Crestline/numpy column is skipped. numpy is only a timing reference, never a dependency.`,
   );
   const cases = [
     { label: 'OFDM', waveform: 'ofdm', config: { link: 'downlink', waveform: 'ofdm', oversampling: 4 } },
@@ -264,19 +266,13 @@ async function ccdfSection(bare: Map<number, number>): Promise<void> {
       if (np) rows.push({ label: `${c.label} numpy ${dtype}`, precision: dtype === 'complex128' ? 'f64' : 'f32', workers: 1, rate: np.rate, level: np.histogramLevel });
     }
     for (const r of rows) {
-      table.push([
-        r.label,
-        r.precision,
-        String(r.workers),
-        fmt(r.rate, 8),
-        fmt(r.rate / fftJsRate, 6, 2),
-        reference ? fmt(r.rate / reference.rate, 6, 2) : '—',
-        r.level.toFixed(2),
-      ]);
+      const ratio = numpyVersion ? [reference ? fmt(r.rate / reference.rate, 6, 2) : '—'] : [];
+      table.push([r.label, r.precision, String(r.workers), fmt(r.rate, 8), fmt(r.rate / fftJsRate, 6, 2), ...ratio, r.level.toFixed(2)]);
     }
   }
   console.log(`   bare fft.js 8192-point rate: ${fmt(fftJsRate, 0).trim()} transforms/s (${fmt(bare8192, 0).trim()} µs each, best over the transform section and these rounds)`);
-  printTable(['case', 'precision', 'workers', 'symbols/s', '÷ fft.js 8192/s', 'Crestline/numpy', 'PAPR@1e-2 dB'], table);
+  const numpyColumn = numpyVersion ? ['Crestline/numpy'] : [];
+  printTable(['case', 'precision', 'workers', 'symbols/s', '÷ fft.js 8192/s', ...numpyColumn, 'PAPR@1e-2 dB'], table);
 }
 
 async function main(): Promise<void> {
