@@ -11,9 +11,9 @@ import { createSubcarrierFiller } from './subcarrierFiller';
  * Single-precision power source over the installed WebAssembly FFT (PFFFT), or null when none is installed or the
  * IFFT size is not a PFFFT size (then createPowerSource uses the f64 path).
  *
- * Per symbol: bits and mapping as the f64 path (in f64), DFT spreading by PFFFT where the block size allows
- * (else the f64 DFT), the values written straight into the IFFT's internal z-order input (no zero fill: only the
- * data bins ever change), one unscaled backward transform with its time output in natural order, then |x|² by a
+ * Per symbol: the same bits and mapping as the f64 path, DFT spreading by PFFFT where the block size allows (else
+ * the f64 DFT), the values written straight into the IFFT's internal z-order input (no zero fill: only the data
+ * bins ever change), one unscaled backward transform with its time output in natural order, then |x|² by a
  * small WebAssembly SIMD kernel (powerKernel.ts; a JavaScript loop where WebAssembly SIMD is missing).
  * Accuracy: PFFFT is f32 throughout (ε = 6e-8); p[n] agrees with the f64 path to within about 6e-7 of the symbol's
  * peak power at 8192 points, and the per-symbol PAPR to a few 1e-6 dB (the tests hold 5e-6 and 1e-4 dB).
