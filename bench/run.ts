@@ -128,7 +128,7 @@ function generatorSection(bare: Map<number, number>): void {
     for (const oversampling of [1, 4]) {
       const plan = createWaveformPlan(parseWaveformConfig({ ...input, oversampling, symbols: 14 }));
       const generator = createWaveformGenerator(plan);
-      const perSymbol = bestMicros(() => generator.generate(14), 5, 40) / 14;
+      const perSymbol = bestMicros(() => generator.generate(14), 9, 40) / 14;
       const n = plan.ofdm.ifftSize;
       const fftJs = bare.get(n)!;
       rows.push([label, String(oversampling), fmt(1e6 / perSymbol, 8), fmt(perSymbol, 7), `${n}: ${fmt(fftJs, 0).trim()}`, fmt(perSymbol / fftJs, 5, 2)]);
