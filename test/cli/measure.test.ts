@@ -45,6 +45,22 @@ describe('crestline measure', () => {
     expect(r.occupiedBandwidthHz).toBeLessThan(1.08e6);
   });
 
+  it('--precision f32 (PFFFT WebAssembly): identical on 1 and 2 workers, and within a 0.01 dB bin of f64', async () => {
+    const one = await run([...common, '--workers', '1', '--precision', 'f32']);
+    const two = await run([...common, '--workers', '2', '--precision', 'f32']);
+    expect(one.code, one.err).toBe(0);
+    expect(two.out).toBe(one.out);
+    const f32 = JSON.parse(one.out);
+    const f64 = JSON.parse((await run([...common, '--workers', '1'])).out);
+    expect(f32.precision).toBe('f32');
+    expect(f32.notes.join(' ')).toMatch(/single precision on pffft-wasm/);
+    // f32 powers agree with f64 to 5e-6 of each symbol's peak (test/dsp/stats), so a level moves by one bin at most.
+    for (const key of ['1e-1', '1e-2']) {
+      expect(Math.abs(f32.paprDb[key] - f64.paprDb[key])).toBeLessThanOrEqual(0.01 + 1e-9);
+      expect(Math.abs(f32.ccdfDb[key] - f64.ccdfDb[key])).toBeLessThanOrEqual(0.01 + 1e-9);
+    }
+  });
+
   it('shards written with --shard k/n --out and combined with crestline merge reproduce the single run exactly', async () => {
     const single = await run([...common, '--workers', '2']);
     const files: string[] = [];

@@ -15,7 +15,7 @@ export interface TransferredHistogram {
 }
 
 export type FromLaneWorker =
-  | { readonly type: 'ready' }
+  | { readonly type: 'ready'; readonly f32Backend: string | null }
   | { readonly type: 'record'; readonly record: BlockRecord }
   | {
       readonly type: 'histograms';

@@ -2,6 +2,7 @@ import { parentPort } from 'node:worker_threads';
 import type { BlockMeasurer } from '../../dsp/montecarlo/blockMeasurer';
 import { createSetupMeasurer } from '../../dsp/montecarlo/measurementSetup';
 import { DspError } from '../../dsp/errors';
+import { loadCliF32Backend } from './f32Backend';
 import type { FromLaneWorker, ToLaneWorker } from './laneProtocol';
 
 /**
@@ -15,30 +16,35 @@ let measurer: BlockMeasurer | undefined;
 const post = (message: FromLaneWorker, transfer: ArrayBuffer[] = []): void => port.postMessage(message, transfer);
 
 port.on('message', (message: ToLaneWorker) => {
-  try {
-    switch (message.type) {
-      case 'init':
-        measurer = createSetupMeasurer(message.setup).measurer;
-        post({ type: 'ready' });
-        return;
-      case 'block':
-        if (!measurer) throw new DspError('INTERNAL', 'A worker was sent a block before its setup.');
-        post({ type: 'record', record: measurer.measureBlock(message.blockIndex) });
-        return;
-      case 'take': {
-        if (!measurer) throw new DspError('INTERNAL', 'A worker was asked for histograms before its setup.');
-        const { paprRunMean, paprSymbolMean, power } = measurer.histograms;
-        post({ type: 'histograms', paprRunMean, paprSymbolMean, power }, [
-          paprRunMean.counts.buffer as ArrayBuffer,
-          paprSymbolMean.counts.buffer as ArrayBuffer,
-          power.counts.buffer as ArrayBuffer,
-        ]);
-        measurer = undefined;
-        return;
-      }
-    }
-  } catch (err) {
+  handle(message).catch((err: unknown) => {
     const code = err instanceof DspError ? err.code : 'INTERNAL';
     post({ type: 'error', code, message: (err as Error).message ?? String(err) });
-  }
+  });
 });
+
+async function handle(message: ToLaneWorker): Promise<void> {
+  switch (message.type) {
+    case 'init': {
+      // Each thread has its own WebAssembly instance; f32 statistics need it loaded here too.
+      const f32Backend = message.setup.precision === 'f32' ? (await loadCliF32Backend()).backend : null;
+      measurer = createSetupMeasurer(message.setup).measurer;
+      post({ type: 'ready', f32Backend });
+      return;
+    }
+    case 'block':
+      if (!measurer) throw new DspError('INTERNAL', 'A worker was sent a block before its setup.');
+      post({ type: 'record', record: measurer.measureBlock(message.blockIndex) });
+      return;
+    case 'take': {
+      if (!measurer) throw new DspError('INTERNAL', 'A worker was asked for histograms before its setup.');
+      const { paprRunMean, paprSymbolMean, power } = measurer.histograms;
+      post({ type: 'histograms', paprRunMean, paprSymbolMean, power }, [
+        paprRunMean.counts.buffer as ArrayBuffer,
+        paprSymbolMean.counts.buffer as ArrayBuffer,
+        power.counts.buffer as ArrayBuffer,
+      ]);
+      measurer = undefined;
+      return;
+    }
+  }
+}

@@ -16,10 +16,11 @@ export interface NodeWorkerLanes {
 const BOOTSTRAP = new URL('./laneWorkerBootstrap.mjs', import.meta.url);
 
 /**
- * Starts `count` worker threads, each building its own power source from `setup`. Each lane handles one request at a
+ * Starts `count` worker threads, each building its own power source from `setup` (and loading the f32 backend for
+ * an f32 setup, which must come out as `f32Backend`, the one the main thread loaded). Each lane handles one request at a
  * time (the scheduler awaits every block), so a single pending slot per worker suffices.
  */
-export function startNodeWorkerLanes(setup: MeasurementSetup, count: number): NodeWorkerLanes {
+export function startNodeWorkerLanes(setup: MeasurementSetup, count: number, f32Backend: string | null = null): NodeWorkerLanes {
   const workers: Worker[] = [];
   const lanes: MonteCarloLane[] = [];
   const readies: Promise<void>[] = [];
@@ -48,7 +49,12 @@ export function startNodeWorkerLanes(setup: MeasurementSetup, count: number): No
         pending = { resolve, reject };
         worker.postMessage(message);
       });
-    const ready = request({ type: 'init', setup }).then(() => undefined);
+    const ready = request({ type: 'init', setup }).then((m) => {
+      // Lanes must compute alike: an f32 run needs the same backend in every thread.
+      if (m.type === 'ready' && m.f32Backend !== f32Backend) {
+        throw new DspError('INTERNAL', `Monte-Carlo worker ${i + 1} loaded f32 backend "${String(m.f32Backend)}", the main thread "${String(f32Backend)}"; lanes would disagree.`);
+      }
+    });
     // Marked handled here; the rejection still reaches whoever awaits `ready` (runBlock, takeHistograms).
     ready.catch(() => undefined);
     readies.push(ready);

@@ -1,7 +1,8 @@
 import { createDbHistogram, PAPR_HISTOGRAM_SPEC, POWER_HISTOGRAM_SPEC, type DbHistogram } from '../metrics/dbHistogram';
-import { binIndexOfPower, binPowersInto, createPowerBinner, type PowerBinner } from '../metrics/powerBinner';
+import { binIndexOfPower, bitsViewOf, createPowerBinner, type PowerBinner } from '../metrics/powerBinner';
 import type { PowerSource } from '../stats/powerSource';
 import { blockSeedOf, blockSymbolCount, type MonteCarloRun } from './runPlan';
+import { accumulateSymbolF32, accumulateSymbolF64, createSubHistograms, foldSubHistograms, type SymbolSums } from './symbolKernels';
 
 /**
  * The three histograms of a run:
@@ -64,6 +65,9 @@ export function createBlockMeasurer(source: PowerSource, run: MonteCarloRun, pre
   const ratioBinner = createPowerBinner(PAPR_HISTOGRAM_SPEC, 1);
   const chunk = Math.min(CHUNK_SYMBOLS, run.blockSymbols);
   const powers = precision === 'f32' ? new Float32Array(chunk * n) : new Float64Array(chunk * n);
+  const bits = bitsViewOf(powers);
+  const sums: SymbolSums = { sum: 0, sumCubed: 0, peak: 0 };
+  const sub = createSubHistograms(histograms.power.counts.length);
   return {
     histograms,
     measureBlock(blockIndex) {
@@ -78,9 +82,10 @@ export function createBlockMeasurer(source: PowerSource, run: MonteCarloRun, pre
         const view = powers.subarray(0, count * n);
         source.fillSymbolPowers(seed, first, count, view);
         for (let s = 0; s < count; s++) {
-          // NOTE: symbol by symbol, so both passes read one symbol's powers while they are still in cache.
-          binPowersInto(powerBinner, view, s * n, n, histograms.power);
-          const stats = symbolStats(view, s * n, n);
+          const stats =
+            powers instanceof Float64Array
+              ? accumulateSymbolF64(powers, bits, s * n, n, powerBinner, sub, sums)
+              : accumulateSymbolF32(powers, bits, s * n, n, powerBinner, sub, sums);
           sumPower += stats.sum;
           sumPowerCubed += stats.sumCubed;
           if (stats.peak > peakPower) peakPower = stats.peak;
@@ -89,28 +94,12 @@ export function createBlockMeasurer(source: PowerSource, run: MonteCarloRun, pre
           if (ratio > maxPaprSymbolMean) maxPaprSymbolMean = ratio;
           addOne(histograms.paprSymbolMean, ratioBinner, ratio);
         }
+        // A chunk counts at most 32 × 2^20 samples, far below the sub-histograms' 2^32.
+        foldSubHistograms(sub, histograms.power.counts);
       }
       return { blockIndex, numSymbols, sumPower, sumPowerCubed, peakPower, maxPaprSymbolMean };
     },
   };
-}
-
-const symbolScratch = { sum: 0, sumCubed: 0, peak: 0 };
-
-function symbolStats(powers: Float64Array | Float32Array, start: number, n: number): typeof symbolScratch {
-  let sum = 0;
-  let sumCubed = 0;
-  let peak = 0;
-  for (let i = start; i < start + n; i++) {
-    const p = powers[i]!;
-    sum += p;
-    sumCubed += p * p * p;
-    if (p > peak) peak = p;
-  }
-  symbolScratch.sum = sum;
-  symbolScratch.sumCubed = sumCubed;
-  symbolScratch.peak = peak;
-  return symbolScratch;
 }
 
 function addOne(histogram: DbHistogram, binner: PowerBinner, value: number): void {

@@ -36,7 +36,8 @@ describe('block measurer', () => {
       symbolCentres.set(own, (symbolCentres.get(own) ?? 0) + 1);
     }
     expect(record.numSymbols).toBe(100);
-    expect(record.sumPower).toBe(sumPower);
+    // The kernel adds samples in pairs: the same sum to rounding (relTol 1e-12), and the same in every lane.
+    expect(Math.abs(record.sumPower - sumPower)).toBeLessThanOrEqual(1e-12 * sumPower);
     expect(record.peakPower).toBe(peakPower);
     const read = (h: typeof measurer.histograms.paprRunMean) => {
       const m = new Map<number, number>();
