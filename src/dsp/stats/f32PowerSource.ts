@@ -31,6 +31,7 @@ export function createF32PowerSource(plan: WaveformPlan): PowerSource | null {
   const kernel = createPowerKernel(n);
   return {
     samplesPerSymbol: n,
+    precisionUsed: 'f32',
     expectedMeanPower: expectedMeanPowerOf(plan),
     fillSymbolPowers(blockSeed, firstSymbol, numSymbols, outPower) {
       checkPowerRequest(blockSeed, firstSymbol, numSymbols);

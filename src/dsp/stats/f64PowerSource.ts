@@ -17,6 +17,7 @@ export function createF64PowerSource(plan: WaveformPlan): PowerSource {
   const timeIq = new Float64Array(2 * n);
   return {
     samplesPerSymbol: n,
+    precisionUsed: 'f64',
     expectedMeanPower: expectedMeanPowerOf(plan),
     fillSymbolPowers(blockSeed, firstSymbol, numSymbols, outPower) {
       checkPowerRequest(blockSeed, firstSymbol, numSymbols);

@@ -16,6 +16,8 @@ import { expectedMeanPowerOf } from './powerRequest';
 export interface PowerSource {
   /** Useful part of one symbol, CP removed, oversampled (fftSize·os). */
   readonly samplesPerSymbol: number;
+  /** The arithmetic actually used: 'f32' only when the WebAssembly FFT is installed and suits the size. */
+  readonly precisionUsed: 'f64' | 'f32';
   /**
    * Exact expectation of |x|² per sample: Σ over data subcarriers of amplitude² (unit-power constellations,
    * E|a_k|² = amplitude²; the unnormalised IFFT sums the subcarrier powers; unitary spreading keeps them).
