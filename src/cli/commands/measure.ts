@@ -135,6 +135,8 @@ async function runMeasure(flags: MeasureFlags, io: CliIo): Promise<void> {
           io.stderr(formatProgress(p));
         }
       : undefined;
+    // Rates and time left count from here: the threads have loaded while the spectrum was measured.
+    await pool?.ready;
     let done = 0;
     const stats = await runMonteCarloBlocks(lanes, setup.run, blocks, {
       signal: controller.signal,
