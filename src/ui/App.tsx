@@ -2,6 +2,8 @@ import { ConfigPanel } from './panels/ConfigPanel';
 import { ResultSummary } from './panels/ResultSummary';
 import { SafetyNotice } from './panels/SafetyNotice';
 import { ConstellationPlot } from './plots/ConstellationPlot';
+import { PlotPanel } from './plots/PlotPanel';
+import { ResourceGridPlot } from './plots/ResourceGridPlot';
 import { TimeSamplesPlot } from './plots/TimeSamplesPlot';
 import { useAppStore } from './state/AppStoreContext';
 
@@ -11,8 +13,10 @@ export function App() {
   return (
     <div className="app">
       <header className="app-header">
-        <h1>Crestline</h1>
-        <p className="tagline">OFDM / DFT-s-OFDM waveform workbench</p>
+        <div className="brand">
+          <h1>Crestline</h1>
+          <p className="tagline">OFDM / DFT-s-OFDM waveform workbench</p>
+        </div>
         <p className="scenario" aria-label="Scenario">
           <span className="scenario-name">{scenarioName}</span>
           <span className="scenario-description">{scenarioDescription}</span>
@@ -22,16 +26,19 @@ export function App() {
       <main className="workbench">
         <ConfigPanel />
         <div className="plots">
-          <section className="panel plot-panel plot-wide" aria-label="Time samples">
+          <PlotPanel title="Time samples" panelId="time" size="wide">
             <TimeSamplesPlot />
-          </section>
-          <div className="plot-row">
-            <section className="panel plot-panel plot-square" aria-label="Constellation">
-              <ConstellationPlot />
-            </section>
-            <ResultSummary />
-          </div>
+          </PlotPanel>
+          <PlotPanel title="Constellation" panelId="constellation">
+            <ConstellationPlot />
+          </PlotPanel>
+          <PlotPanel title="Resource grid" panelId="grid">
+            <ResourceGridPlot />
+          </PlotPanel>
         </div>
+        <aside className="side-column" aria-label="Measurements and scenarios">
+          <ResultSummary />
+        </aside>
       </main>
     </div>
   );

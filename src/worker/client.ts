@@ -1,35 +1,31 @@
 /**
- * Promise API over the engine worker, for the page (src/ui) and later a worker pool.
+ * Promise API over the engine's worker pool (pool.ts), for the page (src/ui).
  *
  * - `generate(config)` resolves with the validated configuration and the waveform (EngineWaveform:
  *   GeneratedWaveform with a plan summary), its typed arrays viewed again over the transferred buffers.
- * - The newest request wins: a new `generate` settles the previous one with SupersededError
- *   (callers ignore it) and tells the worker to drop it if it has not started.
+ * - The newest request of each kind wins: a new `generate` settles the previous one with
+ *   SupersededError (callers ignore it); the pool never sends a request that is already stale.
  * - Engine failures reject with a DspError rebuilt from `{type: "error", code, message}`:
- *   a class does not survive structured cloning, so it is rebuilt here.
- * - A worker that crashes is terminated and replaced; pending requests reject with an INTERNAL
+ *   a class does not survive structured cloning, so it is rebuilt in the pool.
+ * - A worker that crashes is terminated and replaced; its request rejects with an INTERNAL
  *   DspError that says so, and `onRestart` reports it to the page.
  */
 import type { WaveformConfig } from '../config/schema';
-import { DspError } from '../dsp/errors';
+import { waveformBufferKeys, waveformBufferViews, type EngineWaveform, type GeneratedResponse } from './protocol';
 import {
-  isWorkerResponse,
-  PROTOCOL_VERSION,
-  waveformBufferKeys,
-  waveformBufferViews,
-  type EngineWaveform,
-  type GeneratedResponse,
-  type WorkerRequest,
-} from './protocol';
+  createWorkerPool,
+  isSuperseded,
+  SupersededError,
+  type SuccessResponse,
+  type WorkerLike,
+  type WorkerPool,
+  type WorkerRestartNotice,
+} from './pool';
 
-/** The part of a Worker the client uses (a test passes a fake). */
-export interface WorkerLike {
-  postMessage(message: WorkerRequest, transfer: Transferable[]): void;
-  terminate(): void;
-  onmessage: ((event: MessageEvent) => void) | null;
-  onerror: ((event: ErrorEvent) => void) | null;
-  onmessageerror: ((event: MessageEvent) => void) | null;
-}
+export { isSuperseded, SupersededError, type WorkerLike };
+
+/** Workers in the page's pool: the two cores of the machines this runs on (interactive plots and Monte-Carlo blocks share them). */
+export const DEFAULT_POOL_SIZE = 2;
 
 export interface EngineResult {
   requestId: number;
@@ -40,37 +36,22 @@ export interface EngineResult {
   elapsedMs: number;
 }
 
-export interface EngineRestartNotice {
-  /** What the browser said about the crash. */
-  reason: string;
-  /** Requests that were in flight and have been rejected. */
-  failedRequestIds: number[];
-  /** Crashes so far in this client. */
-  restartCount: number;
-}
+export type EngineRestartNotice = WorkerRestartNotice;
 
 export interface EngineClientOptions {
   /** Defaults to the module worker in engine.worker.ts. */
   createWorker?: () => WorkerLike;
   onRestart?: (notice: EngineRestartNotice) => void;
+  /** Workers in the pool (default DEFAULT_POOL_SIZE). */
+  poolSize?: number;
 }
 
 export interface EngineClient {
   generate(config: unknown): Promise<EngineResult>;
-  /** Terminates the worker; pending requests settle with SupersededError. */
+  /** The pool behind the client, for long runs that spread blocks over the workers (ccdfRun.ts). */
+  readonly pool: WorkerPool;
+  /** Terminates the workers; pending requests settle with SupersededError. */
   dispose(): void;
-}
-
-/** A request overtaken by a newer one (or by dispose); not a failure to show. */
-export class SupersededError extends Error {
-  override readonly name = 'SupersededError';
-  constructor(readonly requestId: number) {
-    super(`Engine request ${requestId} was superseded by a newer request.`);
-  }
-}
-
-export function isSuperseded(error: unknown): error is SupersededError {
-  return error instanceof SupersededError;
 }
 
 function createModuleWorker(): WorkerLike {
@@ -87,118 +68,27 @@ export function rebuildWaveform(response: GeneratedResponse): EngineWaveform {
   return { ...response.meta, ...views } as EngineWaveform;
 }
 
-interface Pending {
-  resolve(result: EngineResult): void;
-  reject(error: unknown): void;
+/** Narrows a pool answer to the type a request expects (a mismatch is a bug in the worker). */
+export function expectResponse<TType extends SuccessResponse['type']>(
+  response: SuccessResponse,
+  type: TType,
+): Extract<SuccessResponse, { type: TType }> {
+  if (response.type !== type) throw new Error(`The engine answered "${response.type}" where "${type}" was expected.`);
+  return response as Extract<SuccessResponse, { type: TType }>;
 }
 
 export function createEngineClient(options: EngineClientOptions = {}): EngineClient {
-  const createWorker = options.createWorker ?? createModuleWorker;
-  const pending = new Map<number, Pending>();
-  let worker: WorkerLike | null = null;
-  let workerReady = false;
-  let nextId = 1;
-  let newestGenerateId = 0;
-  let restartCount = 0;
+  const pool = createWorkerPool({
+    size: options.poolSize ?? DEFAULT_POOL_SIZE,
+    createWorker: options.createWorker ?? createModuleWorker,
+    ...(options.onRestart !== undefined ? { onRestart: options.onRestart } : {}),
+  });
 
-  const rejectAll = (makeError: (id: number) => unknown): number[] => {
-    const ids = [...pending.keys()];
-    for (const id of ids) {
-      pending.get(id)?.reject(makeError(id));
-      pending.delete(id);
-    }
-    return ids;
+  const generate = async (config: unknown): Promise<EngineResult> => {
+    const { result } = pool.run({ type: 'generate', config }, { lane: 'generate', priority: 'interactive' });
+    const response = expectResponse(await result, 'generated');
+    return { requestId: response.id, config: response.config, waveform: rebuildWaveform(response), elapsedMs: response.elapsedMs };
   };
 
-  const settle = (data: unknown): void => {
-    if (!isWorkerResponse(data)) {
-      rejectAll(() => new DspError('INTERNAL', 'The engine worker sent a message the page does not understand.'));
-      return;
-    }
-    if (data.protocolVersion !== PROTOCOL_VERSION) {
-      const message = `The engine worker speaks protocol v${String(data.protocolVersion)} but the page speaks v${PROTOCOL_VERSION}; reload the page.`;
-      rejectAll(() => new DspError('INTERNAL', message));
-      return;
-    }
-    if (data.type === 'ready') {
-      workerReady = true;
-      return;
-    }
-    const entry = pending.get(data.id);
-    if (entry === undefined) return; // superseded: already settled
-    pending.delete(data.id);
-    if (data.type === 'error') {
-      entry.reject(new DspError(data.code, data.message, data.details));
-      return;
-    }
-    entry.resolve({ requestId: data.id, config: data.config, waveform: rebuildWaveform(data), elapsedMs: data.elapsedMs });
-  };
-
-  const handleCrash = (reason: string): void => {
-    const loadedBeforeCrash = workerReady;
-    worker?.terminate();
-    worker = null;
-    workerReady = false;
-    restartCount += 1;
-    const failedRequestIds = rejectAll(
-      (id) =>
-        new DspError(
-          'INTERNAL',
-          `The engine worker crashed (${reason}) while working on request ${id}. A fresh worker has been started; run the request again.`,
-        ),
-    );
-    // A worker that crashed before it was ready (e.g. its script failed to load) would crash again at once:
-    // start the next one only when a request needs it.
-    if (loadedBeforeCrash) ensureWorker();
-    options.onRestart?.({ reason, failedRequestIds, restartCount });
-  };
-
-  function ensureWorker(): WorkerLike {
-    if (worker !== null) return worker;
-    const created = createWorker();
-    created.onmessage = (event) => settle(event.data);
-    created.onerror = (event) => {
-      event.preventDefault?.();
-      handleCrash(event.message || 'the worker script failed or threw outside a request');
-    };
-    created.onmessageerror = () =>
-      rejectAll(() => new DspError('INTERNAL', 'A message from the engine worker could not be read (structured clone failed).'));
-    worker = created;
-    return created;
-  }
-
-  const generate = (config: unknown): Promise<EngineResult> => {
-    const target = ensureWorker();
-    const previous = pending.get(newestGenerateId);
-    if (previous !== undefined) {
-      pending.delete(newestGenerateId);
-      previous.reject(new SupersededError(newestGenerateId));
-      target.postMessage({ type: 'cancel', id: nextId++, protocolVersion: PROTOCOL_VERSION, targetId: newestGenerateId }, []);
-    }
-    const id = nextId++;
-    newestGenerateId = id;
-    return new Promise<EngineResult>((resolve, reject) => {
-      pending.set(id, { resolve, reject });
-      try {
-        target.postMessage({ type: 'generate', id, protocolVersion: PROTOCOL_VERSION, config }, []);
-      } catch (error) {
-        pending.delete(id);
-        const reason = error instanceof Error ? error.message : String(error);
-        reject(
-          new DspError(
-            'INVALID_CONFIG',
-            `The configuration could not be sent to the engine: it must be plain JSON data (${reason}).`,
-          ),
-        );
-      }
-    });
-  };
-
-  const dispose = (): void => {
-    worker?.terminate();
-    worker = null;
-    rejectAll((id) => new SupersededError(id));
-  };
-
-  return { generate, dispose };
+  return { generate, pool, dispose: () => pool.dispose() };
 }
