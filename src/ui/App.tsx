@@ -1,6 +1,10 @@
+import { ComparisonTable } from './panels/ComparisonTable';
 import { ConfigPanel } from './panels/ConfigPanel';
 import { ResultSummary } from './panels/ResultSummary';
 import { SafetyNotice } from './panels/SafetyNotice';
+import { ScenariosPanel } from './panels/ScenariosPanel';
+import { ThemeChoice } from './panels/ThemeChoice';
+import { WorkspaceBar } from './panels/WorkspaceBar';
 import { ConstellationPlot } from './plots/ConstellationPlot';
 import { PlotPanel } from './plots/PlotPanel';
 import { ResourceGridPlot } from './plots/ResourceGridPlot';
@@ -10,6 +14,8 @@ import { useAppStore } from './state/AppStoreContext';
 export function App() {
   const scenarioName = useAppStore((state) => state.scenarioName);
   const scenarioDescription = useAppStore((state) => state.scenarioDescription);
+  const pageNotice = useAppStore((state) => state.pageNotice);
+  const setPageNotice = useAppStore((state) => state.setPageNotice);
   return (
     <div className="app">
       <header className="app-header">
@@ -17,12 +23,24 @@ export function App() {
           <h1>Crestline</h1>
           <p className="tagline">OFDM / DFT-s-OFDM waveform workbench</p>
         </div>
+        <div className="header-tools">
+          <WorkspaceBar />
+          <ThemeChoice />
+        </div>
         <p className="scenario" aria-label="Scenario">
           <span className="scenario-name">{scenarioName}</span>
           <span className="scenario-description">{scenarioDescription}</span>
         </p>
       </header>
       <SafetyNotice />
+      {pageNotice !== null && (
+        <p className="page-notice" role="alert">
+          {pageNotice}
+          <button type="button" className="small-button" onClick={() => setPageNotice(null)}>
+            Dismiss
+          </button>
+        </p>
+      )}
       <main className="workbench">
         <ConfigPanel />
         <div className="plots">
@@ -35,9 +53,11 @@ export function App() {
           <PlotPanel title="Resource grid" panelId="grid">
             <ResourceGridPlot />
           </PlotPanel>
+          <ComparisonTable />
         </div>
         <aside className="side-column" aria-label="Measurements and scenarios">
           <ResultSummary />
+          <ScenariosPanel />
         </aside>
       </main>
     </div>

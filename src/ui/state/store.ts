@@ -1,13 +1,14 @@
 /**
- * The workbench store: the config, results and view slices merged into one vanilla zustand store,
+ * The workbench store: the config, results, view and scenarios slices merged into one vanilla zustand store,
  * so its logic runs (and is tested) without React. Components read it through useAppStore.
  */
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { createConfigSlice, type ConfigSlice } from './configSlice';
 import { createResultsSlice, type ResultsSlice } from './resultsSlice';
+import { createScenariosSlice, type ScenariosSlice } from './scenariosSlice';
 import { createViewSlice, type ViewSlice } from './viewSlice';
 
-export type AppState = ConfigSlice & ResultsSlice & ViewSlice;
+export type AppState = ConfigSlice & ResultsSlice & ViewSlice & ScenariosSlice;
 export type AppStore = StoreApi<AppState>;
 
 export function createAppStore(): AppStore {
@@ -15,5 +16,6 @@ export function createAppStore(): AppStore {
     ...createConfigSlice(...args),
     ...createResultsSlice(...args),
     ...createViewSlice(...args),
+    ...createScenariosSlice(...args),
   }));
 }
