@@ -41,7 +41,7 @@ test('loads the demo scenario, plots one symbol from the worker and follows a mo
 
   await page.goto('/');
   await expect(page.getByRole('heading', { level: 1, name: 'Crestline' })).toBeVisible();
-  await expect(page.getByLabel('Scenario')).toContainText('Brackenmoor Fen test lab');
+  await expect(page.getByLabel('Scenario', { exact: true })).toContainText('Brackenmoor Fen test lab');
   await expect(page.getByRole('note', { name: 'Safety caution' })).toContainText('licence');
 
   const timePlot = page.getByTestId('time-samples-plot');
@@ -64,26 +64,26 @@ test('loads the demo scenario, plots one symbol from the worker and follows a mo
   await page.screenshot({ path: testInfo.outputPath('workbench-light.png'), fullPage: true });
 
   const rendersBefore = await renderCount(constellationPlot);
-  await page.getByLabel('Modulation').selectOption('qpsk');
+  await page.getByLabel('Modulation', { exact: true }).selectOption('qpsk');
   await expect.poll(() => distinctConstellationPoints(constellationPlot)).toBe(4);
   expect(await renderCount(constellationPlot)).toBeGreaterThan(rendersBefore);
   await expect(constellationPlot.locator('.gtitle')).toHaveText('Symbol 0: 480 QPSK data symbols');
 
-  await page.getByLabel('Symbol shown').fill('3');
+  await page.getByLabel('Symbol shown', { exact: true }).fill('3');
   await expect(timePlot.locator('.gtitle')).toContainText('Symbol 3: time samples');
 
   // An invalid value is marked at its field with the schema's message and is not sent to the engine.
   const rendersBeforeInvalid = await renderCount(timePlot);
-  await page.getByLabel('Oversampling').fill('17');
+  await page.getByLabel('Oversampling', { exact: true }).fill('17');
   const oversamplingField = page.locator('[data-field="oversampling"]');
   await expect(oversamplingField.getByRole('alert')).toHaveText('must be a whole number from 1 to 16');
-  await expect(page.getByLabel('Oversampling')).toHaveAttribute('aria-invalid', 'true');
+  await expect(page.getByLabel('Oversampling', { exact: true })).toHaveAttribute('aria-invalid', 'true');
   await page.screenshot({ path: testInfo.outputPath('workbench-field-error.png'), fullPage: true });
   // A cross-field rule comes back from the engine and is marked at its field too.
-  await page.getByLabel('Oversampling').fill('2');
-  await page.getByLabel('Channel bandwidth').fill('7');
+  await page.getByLabel('Oversampling', { exact: true }).fill('2');
+  await page.getByLabel('Channel bandwidth', { exact: true }).fill('7');
   await expect(page.locator('[data-field="bandwidthMHz"]').getByRole('alert')).toContainText('allowed: 1.4, 3, 5, 10, 15, 20');
-  await page.getByLabel('Channel bandwidth').fill('10');
+  await page.getByLabel('Channel bandwidth', { exact: true }).fill('10');
   await expect(page.locator('[data-field="bandwidthMHz"]').getByRole('alert')).toHaveCount(0);
   await expect.poll(() => renderCount(timePlot)).toBeGreaterThan(rendersBeforeInvalid);
 
