@@ -6,6 +6,8 @@ import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { createEngineClient } from '../worker/client';
 import { App } from './App';
+import { browserTimingApi, createUpdateTimer } from './perf/updateTimer';
+import { UpdateTimerContext } from './perf/UpdateTimerContext';
 import { createIndexedDbStore } from './persist/indexedDbStore';
 import { createWorkspaceArchive } from './persist/workspaceArchive';
 import { AppStoreProvider } from './state/AppStoreContext';
@@ -34,12 +36,15 @@ store.subscribe((state, previous) => {
   if (state.themePreference !== previous.themePreference) applyScheme();
 });
 
+const updateTimer = createUpdateTimer(browserTimingApi());
+updateTimer.subscribe(({ durationMs }) => store.getState().setLastUpdateMs(durationMs));
+
 const archive = createWorkspaceArchive(createIndexedDbStore('crestline-workspace'));
 
 async function start(): Promise<void> {
   const outcome = await startWorkspace(store, archive, window.location.hash, Date.now());
   if (outcome.notice !== null) store.getState().setPageNotice(outcome.notice);
-  connectEngine(store, client);
+  connectEngine(store, client, { onSubmit: (seq) => updateTimer.begin(seq) });
   connectPersistence(store, archive);
   connectPermalink(store, (hash) => window.history.replaceState(null, '', hash));
 }
@@ -49,7 +54,9 @@ if (rootElement === null) throw new Error('index.html has no #root element.');
 createRoot(rootElement).render(
   <StrictMode>
     <AppStoreProvider store={store}>
-      <App />
+      <UpdateTimerContext.Provider value={updateTimer}>
+        <App />
+      </UpdateTimerContext.Provider>
     </AppStoreProvider>
   </StrictMode>,
 );

@@ -10,6 +10,7 @@ export function ConstellationPlot() {
   const result = useAppStore((state) => state.result);
   const symbolIndex = useAppStore((state) => state.symbolIndex);
   const scheme = useAppStore((state) => state.colorScheme);
+  const epoch = useAppStore((state) => state.resultSeq);
   const figure = useMemo(() => {
     if (result === null || symbolIndex >= result.waveform.numSymbols) return null;
     const modulations = [...new Set(result.waveform.summary.allocations.map((block) => displayName(block.modulation)))];
@@ -19,5 +20,5 @@ export function ConstellationPlot() {
       modulations.join(' + '),
     );
   }, [result, symbolIndex, scheme]);
-  return <PlotlyFigure figure={figure} label={`Constellation of OFDM symbol ${symbolIndex}`} testId="constellation-plot" />;
+  return <PlotlyFigure figure={figure} label={`Constellation of OFDM symbol ${symbolIndex}`} epoch={epoch} testId="constellation-plot" />;
 }

@@ -1,5 +1,6 @@
 import type { Config, Data, Layout } from 'plotly.js-dist-min';
 import { useEffect, useRef, useState } from 'react';
+import { useUpdateTimer } from '../perf/UpdateTimerContext';
 import { loadPlotly } from './loadPlotly';
 
 export interface Figure {
@@ -13,6 +14,8 @@ export interface PlotlyFigureProps {
   /** Accessible name of the plot region. */
   label: string;
   testId: string;
+  /** Sequence number of the configuration the figure shows (reported to the update timer after drawing). */
+  epoch?: number;
 }
 
 const plotConfig: Partial<Config> = {
@@ -25,21 +28,39 @@ const plotConfig: Partial<Config> = {
  * Renders one Plotly figure into a fixed-height box (no layout jump while Plotly loads or updates).
  * After each render the box carries `data-render-count`, which the browser tests wait on.
  */
-export function PlotlyFigure({ figure, label, testId }: PlotlyFigureProps) {
+export function PlotlyFigure({ figure, label, testId, epoch }: PlotlyFigureProps) {
   const boxRef = useRef<HTMLDivElement>(null);
   const renderCount = useRef(0);
+  const drawnFigure = useRef<Figure | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
+  const timer = useUpdateTimer();
+
+  useEffect(() => {
+    if (timer === null || figure === null) return;
+    timer.register(testId);
+    return () => timer.unregister(testId);
+  }, [timer, testId, figure === null]);
 
   useEffect(() => {
     const box = boxRef.current;
     if (box === null || figure === null) return;
+    // Same figure for a newer configuration (nothing this plot shows changed): already up to date.
+    if (drawnFigure.current === figure) {
+      if (epoch !== undefined) timer?.rendered(testId, epoch);
+      return;
+    }
     let current = true;
     loadPlotly()
       .then((Plotly) => (current ? Plotly.react(box, figure.data, figure.layout, plotConfig) : undefined))
       .then(() => {
         if (!current) return;
+        drawnFigure.current = figure;
         renderCount.current += 1;
         box.dataset.renderCount = String(renderCount.current);
+        if (epoch !== undefined) {
+          box.dataset.epoch = String(epoch);
+          timer?.rendered(testId, epoch);
+        }
         setLoadError(null);
       })
       .catch((error: unknown) => {
@@ -48,7 +69,7 @@ export function PlotlyFigure({ figure, label, testId }: PlotlyFigureProps) {
     return () => {
       current = false;
     };
-  }, [figure]);
+  }, [figure, epoch, timer, testId]);
 
   // Purge Plotly's listeners on a real unmount only: React's development re-mount (StrictMode) keeps the box.
   const mounted = useRef(false);

@@ -8,9 +8,10 @@ import { PlotlyFigure } from './PlotlyFigure';
 export function ResourceGridPlot() {
   const waveform = useAppStore((state) => state.result?.waveform ?? null);
   const scheme = useAppStore((state) => state.colorScheme);
+  const epoch = useAppStore((state) => state.resultSeq);
   const figure = useMemo(
     () => (waveform === null ? null : buildResourceGridFigure(prepareResourceGrid(waveform), plotThemes[scheme])),
     [waveform, scheme],
   );
-  return <PlotlyFigure figure={figure} label="Resource grid: OFDM symbols by subcarriers" testId="resource-grid-plot" />;
+  return <PlotlyFigure figure={figure} label="Resource grid: OFDM symbols by subcarriers" epoch={epoch} testId="resource-grid-plot" />;
 }

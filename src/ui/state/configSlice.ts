@@ -18,6 +18,8 @@ export interface ConfigSlice {
   fieldErrors: Readonly<Record<string, string>>;
   /** The latest schema-valid draft, for the engine; unchanged while the draft is invalid. */
   submittedDraft: ConfigDraft | null;
+  /** Counts submitted drafts; results carry the number of the draft they answer. */
+  submittedSeq: number;
   loadScenario(scenario: Scenario): void;
   /**
    * Sets the field at dotted `path` ("oversampling", "data.seed", "allocation"); `undefined` removes it
@@ -33,31 +35,36 @@ export interface ConfigSlice {
 
 function applyDraft(
   draft: ConfigDraft,
-): Pick<ConfigSlice, 'draft' | 'fieldErrors'> & Partial<Pick<ConfigSlice, 'submittedDraft'>> {
+  seq: number,
+): Pick<ConfigSlice, 'draft' | 'fieldErrors'> & Partial<Pick<ConfigSlice, 'submittedDraft' | 'submittedSeq'>> {
   const issues = checkDraftAgainstSchema(draft);
   if (issues.length > 0) return { draft, fieldErrors: issuesByPath(issues) };
-  return { draft, fieldErrors: {}, submittedDraft: draft };
+  return { draft, fieldErrors: {}, submittedDraft: draft, submittedSeq: seq + 1 };
 }
 
-export const createConfigSlice: StateCreator<AppState, [], [], ConfigSlice> = (set) => ({
+export const createConfigSlice: StateCreator<AppState, [], [], ConfigSlice> = (set, get) => ({
   scenarioName: '',
   scenarioDescription: '',
   draft: {},
   fieldErrors: {},
   submittedDraft: null,
+  submittedSeq: 0,
   loadScenario: (scenario) =>
     set({
       scenarioName: scenario.name,
       scenarioDescription: scenario.description,
-      ...applyDraft(structuredClone(scenario.config) as ConfigDraft),
+      ...applyDraft(structuredClone(scenario.config) as ConfigDraft, get().submittedSeq),
     }),
-  setField: (path, value) => set((state) => applyDraft(applyFieldChange(state.draft, path, value))),
+  setField: (path, value) => set((state) => applyDraft(applyFieldChange(state.draft, path, value), state.submittedSeq)),
   replaceDraft: (draft, scenarioName, scenarioDescription) =>
     set((state) => ({
       scenarioName: scenarioName ?? state.scenarioName,
       scenarioDescription: scenarioDescription ?? state.scenarioDescription,
-      ...applyDraft(structuredClone(draft)),
+      ...applyDraft(structuredClone(draft), state.submittedSeq),
     })),
   setEngineIssues: (issues) => set({ fieldErrors: issuesByPath(issues) }),
-  resubmit: () => set((state) => (state.submittedDraft === null ? {} : { submittedDraft: { ...state.submittedDraft } })),
+  resubmit: () =>
+    set((state) =>
+      state.submittedDraft === null ? {} : { submittedDraft: { ...state.submittedDraft }, submittedSeq: state.submittedSeq + 1 },
+    ),
 });

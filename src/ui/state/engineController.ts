@@ -8,14 +8,21 @@ import { isSuperseded, type EngineClient } from '../../worker/client';
 import type { ConfigDraft } from './configValidation';
 import type { AppStore } from './store';
 
-export function connectEngine(store: AppStore, client: EngineClient): () => void {
+export interface EngineControllerOptions {
+  /** Called when a configuration goes to the engine (the update timer marks it). */
+  onSubmit?: (seq: number) => void;
+}
+
+export function connectEngine(store: AppStore, client: EngineClient, options: EngineControllerOptions = {}): () => void {
   const run = (draft: ConfigDraft): void => {
     const state = store.getState();
+    const seq = state.submittedSeq;
+    options.onSubmit?.(seq);
     state.requestStarted();
     client.generate(draft).then(
       (result) => {
         if (store.getState().submittedDraft !== draft) return; // a newer draft is on its way
-        store.getState().requestSucceeded(result);
+        store.getState().requestSucceeded(result, seq);
       },
       (error: unknown) => {
         if (isSuperseded(error)) return;

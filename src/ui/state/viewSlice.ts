@@ -14,10 +14,13 @@ export interface ViewSlice {
   themePreference: ThemePreference;
   /** A message for the whole page (e.g. a damaged link); null when there is none. */
   pageNotice: string | null;
+  /** Milliseconds from the last configuration change until every plot showed it (perf/updateTimer.ts). */
+  lastUpdateMs: number | null;
   setSymbolIndex(symbolIndex: number): void;
   setColorScheme(colorScheme: ColorScheme): void;
   setThemePreference(preference: ThemePreference): void;
   setPageNotice(notice: string | null): void;
+  setLastUpdateMs(durationMs: number): void;
 }
 
 export const createViewSlice: StateCreator<AppState, [], [], ViewSlice> = (set) => ({
@@ -25,6 +28,7 @@ export const createViewSlice: StateCreator<AppState, [], [], ViewSlice> = (set) 
   colorScheme: 'light',
   themePreference: 'auto',
   pageNotice: null,
+  lastUpdateMs: null,
   setSymbolIndex: (symbolIndex) =>
     set((state) => {
       const last = Math.max(0, (state.result?.waveform.symbolLayout.length ?? 1) - 1);
@@ -34,4 +38,5 @@ export const createViewSlice: StateCreator<AppState, [], [], ViewSlice> = (set) 
   setColorScheme: (colorScheme) => set({ colorScheme }),
   setThemePreference: (themePreference) => set({ themePreference }),
   setPageNotice: (pageNotice) => set({ pageNotice }),
+  setLastUpdateMs: (lastUpdateMs) => set({ lastUpdateMs }),
 });
