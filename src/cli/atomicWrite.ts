@@ -34,3 +34,75 @@ export function writeFilesAtomically(files: readonly { path: string; bytes: Uint
 export function temporaryPathFor(finalPath: string): string {
   return join(dirname(finalPath), `.crestline-tmp-${process.pid}-${basename(finalPath)}`);
 }
+
+/** A data file being written under a temporary name, plus the small files committed with it. */
+export interface AtomicStreamWriter {
+  /** Temporary path the data goes to until `commit`. */
+  readonly tempPath: string;
+  write(bytes: Uint8Array): void;
+  /**
+   * Fsyncs and renames the data file to its final name, after writing `companions` (e.g. the metadata) atomically
+   * beside it; the data is renamed first and the metadata last, so a complete metadata file means complete data.
+   */
+  commit(companions: readonly { path: string; bytes: Uint8Array | string }[]): void;
+  /** Closes and removes the temporary file; nothing with the final name is created. Safe to call twice. */
+  abort(): void;
+}
+
+/** Opens `finalPath`'s temporary twin for streaming; nothing appears under `finalPath` before `commit`. */
+export function openAtomicStream(finalPath: string): AtomicStreamWriter {
+  const tempPath = temporaryPathFor(finalPath);
+  let fd: number | undefined = openSync(tempPath, 'w');
+  const closeFd = (): void => {
+    if (fd !== undefined) {
+      const f = fd;
+      fd = undefined;
+      closeSync(f);
+    }
+  };
+  return {
+    tempPath,
+    write(bytes) {
+      if (fd === undefined) throw new Error(`${finalPath}: write after the file was closed.`);
+      let written = 0;
+      while (written < bytes.byteLength) written += writeSync(fd, bytes, written, bytes.byteLength - written);
+    },
+    commit(companions) {
+      if (fd === undefined) throw new Error(`${finalPath}: commit after the file was closed.`);
+      const temps: string[] = [];
+      let dataRenamed = false;
+      try {
+        fsyncSync(fd);
+        closeFd();
+        for (const c of companions) {
+          const t = temporaryPathFor(c.path);
+          temps.push(t);
+          const cfd = openSync(t, 'w');
+          try {
+            const data = typeof c.bytes === 'string' ? Buffer.from(c.bytes, 'utf8') : c.bytes;
+            let written = 0;
+            while (written < data.byteLength) written += writeSync(cfd, data, written, data.byteLength - written);
+            fsyncSync(cfd);
+          } finally {
+            closeSync(cfd);
+          }
+        }
+        renameSync(tempPath, finalPath);
+        dataRenamed = true;
+        companions.forEach((c, i) => renameSync(temps[i]!, c.path));
+      } catch (err) {
+        for (const t of temps) rmSync(t, { force: true });
+        rmSync(tempPath, { force: true });
+        if (dataRenamed) rmSync(finalPath, { force: true });
+        throw err;
+      }
+    },
+    abort() {
+      try {
+        closeFd();
+      } finally {
+        rmSync(tempPath, { force: true });
+      }
+    },
+  };
+}

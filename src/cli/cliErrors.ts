@@ -1,12 +1,19 @@
 import { DspError } from '../dsp/errors';
+import { ExportCancelledError } from './streamExport';
 
 /** Exit code for a user error (bad configuration, bad file): the message says what to fix. */
 export const EXIT_USER_ERROR = 2;
 /** Exit code for an unexpected failure. */
 export const EXIT_INTERNAL_ERROR = 1;
+/** Exit code after a cancel (SIGINT), as shells report 128 + signal 2. */
+export const EXIT_CANCELLED = 130;
 
 /** Prints an error for the person at the terminal and returns the exit code; stack traces only with verbose. */
 export function reportCliError(err: unknown, verbose: boolean, stderr: (line: string) => void): number {
+  if (err instanceof ExportCancelledError) {
+    stderr(`crestline: ${err.message}`);
+    return EXIT_CANCELLED;
+  }
   if (err instanceof DspError && err.code !== 'INTERNAL') {
     stderr(`crestline: ${err.message}`);
     if (verbose && err.stack) stderr(err.stack);

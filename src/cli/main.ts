@@ -1,9 +1,10 @@
 import { Command, CommanderError } from 'commander';
 import { reportCliError } from './cliErrors';
 import { registerGenerate } from './commands/generate';
+import { registerInspect } from './commands/inspect';
 
 /** Every subcommand registers itself here; each lives in src/cli/commands/<name>.ts. */
-const COMMANDS: readonly ((program: Command, io: CliIo) => void)[] = [registerGenerate];
+const COMMANDS: readonly ((program: Command, io: CliIo) => void)[] = [registerGenerate, registerInspect];
 
 /** Where a command prints; tests pass their own. */
 export interface CliIo {

@@ -1,0 +1,125 @@
+import { closeSync, existsSync, openSync, readFileSync, readSync, statSync } from 'node:fs';
+import { DspError } from '../dsp/errors';
+import { createIqDataReader, describeBareRawSource, describeRawSource, describeSigmfSource, describeWavSource, readCsvSource, type IqReadResult, type IqSource } from '../io/importIq';
+import type { IqDatatype } from '../io/iqDatatypes';
+import { MAX_CSV_SAMPLES } from '../io/csvIq';
+import { MAX_SIDECAR_BYTES } from '../io/iqSidecar';
+import { MAX_META_BYTES } from '../io/sigmfMeta';
+import { createNodeSha512 } from './nodeHash';
+
+/** Raw formats that can be read without a sidecar (`--raw-format`). */
+export const BARE_RAW_FORMATS: Readonly<Record<string, IqDatatype>> = { f32le: 'cf32_le', i16le: 'ci16_le', i16be: 'ci16_be', i8: 'ci8', u8: 'cu8' };
+
+export interface ReadIqFileOptions {
+  readonly ignoreChecksum?: boolean | undefined;
+  /** For a raw file without sidecar: its format and rate. */
+  readonly rawFormat?: string | undefined;
+  readonly rateHz?: number | undefined;
+  readonly onProgress?: ((doneBytes: number, totalBytes: number) => void) | undefined;
+}
+
+/** Reads and validates an IQ file of any supported kind, streaming its data; returns what it holds. */
+export function readIqFile(path: string, options: ReadIqFileOptions = {}): { source: IqSource; result: IqReadResult } {
+  const lower = path.toLowerCase();
+  if (lower.endsWith('.sigmf')) {
+    throw new DspError('INVALID_FILE', `${path}: SigMF archives (.sigmf, tar) are not read directly; extract the .sigmf-meta and .sigmf-data first.`, {
+      problem: 'unsupported',
+    });
+  }
+  if (lower.endsWith('.sigmf-meta') || lower.endsWith('.sigmf-data')) {
+    const base = path.slice(0, -'.sigmf-meta'.length);
+    const metaPath = `${base}.sigmf-meta`;
+    const dataPath = `${base}.sigmf-data`;
+    const metaText = readText(metaPath, MAX_META_BYTES, 'SigMF metadata');
+    const source = describeSigmfSource(metaText, metaPath, dataPath, fileSize(dataPath, 'SigMF data'));
+    return { source, result: streamData(dataPath, source, options) };
+  }
+  let dataPath = path;
+  let sidecarPath: string | undefined;
+  if (/\.(iq|wav|csv)\.json$/i.test(path)) {
+    dataPath = path.slice(0, -'.json'.length);
+    sidecarPath = path;
+  } else if (existsSync(`${path}.json`)) {
+    sidecarPath = `${path}.json`;
+  }
+  const dataLower = dataPath.toLowerCase();
+  const sidecar = sidecarPath ? { name: sidecarPath, text: readText(sidecarPath, MAX_SIDECAR_BYTES, 'sidecar') } : undefined;
+  if (dataLower.endsWith('.wav')) {
+    const size = fileSize(dataPath, 'WAV');
+    const head = readHead(dataPath, Math.min(size, 1 << 16));
+    const source = describeWavSource(head, dataPath, size, sidecar);
+    return { source, result: streamData(dataPath, source, options) };
+  }
+  if (dataLower.endsWith('.csv')) {
+    const size = fileSize(dataPath, 'CSV');
+    // Longest plausible CSV line for a double pair is ~50 bytes.
+    if (size > MAX_CSV_SAMPLES * 64) {
+      throw new DspError('INVALID_FILE', `${dataPath}: ${size} bytes is more than a CSV of ${MAX_CSV_SAMPLES} samples can be; CSV is for short records.`, { problem: 'size' });
+    }
+    return readCsvSource(new Uint8Array(readFileSync(dataPath)), dataPath, sidecar, { ignoreChecksum: options.ignoreChecksum, createHasher: createNodeSha512 });
+  }
+  if (sidecar) {
+    const source = describeRawSource(sidecar.text, sidecar.name, dataPath, fileSize(dataPath, 'raw IQ'));
+    return { source, result: streamData(dataPath, source, options) };
+  }
+  if (options.rawFormat !== undefined) {
+    const datatype = BARE_RAW_FORMATS[options.rawFormat];
+    if (!datatype) {
+      throw new DspError('INVALID_CONFIG', `--raw-format "${options.rawFormat}" is not a raw format; allowed: ${Object.keys(BARE_RAW_FORMATS).join(', ')}.`, { field: 'raw-format' });
+    }
+    if (options.rateHz === undefined) throw new DspError('INVALID_CONFIG', '--raw-format needs --rate <Hz> as well.', { field: 'rate' });
+    const source = describeBareRawSource(datatype, options.rateHz, dataPath, fileSize(dataPath, 'raw IQ'));
+    return { source, result: streamData(dataPath, source, options) };
+  }
+  throw new DspError(
+    'INVALID_FILE',
+    `${path}: cannot tell the format: expected .sigmf-meta/.sigmf-data, .wav, .csv, or raw .iq with its .iq.json sidecar (for a raw file without sidecar give --raw-format and --rate).`,
+    { problem: 'unknown-format' },
+  );
+}
+
+function streamData(dataPath: string, source: IqSource, options: ReadIqFileOptions): IqReadResult {
+  const reader = createIqDataReader(source, { ignoreChecksum: options.ignoreChecksum, createHasher: createNodeSha512 });
+  const fd = openSync(dataPath, 'r');
+  try {
+    const chunk = new Uint8Array(4 << 20);
+    let done = 0;
+    for (;;) {
+      const n = readSync(fd, chunk, 0, chunk.length, null);
+      if (n === 0) break;
+      reader.push(chunk.subarray(0, n));
+      done += n;
+      options.onProgress?.(done, source.dataFileBytes);
+    }
+  } finally {
+    closeSync(fd);
+  }
+  return reader.finish();
+}
+
+function fileSize(path: string, what: string): number {
+  try {
+    const st = statSync(path);
+    if (!st.isFile()) throw new Error('not a regular file');
+    return st.size;
+  } catch (err) {
+    throw new DspError('INVALID_FILE', `${path}: cannot open the ${what} file (${(err as Error).message}).`, { problem: 'missing' });
+  }
+}
+
+function readText(path: string, limit: number, what: string): string {
+  const size = fileSize(path, what);
+  if (size > limit) throw new DspError('INVALID_FILE', `${path}: the ${what} file is ${size} bytes, more than the ${limit} allowed.`, { problem: 'size' });
+  return readFileSync(path, 'utf8');
+}
+
+function readHead(path: string, length: number): Uint8Array {
+  const fd = openSync(path, 'r');
+  try {
+    const out = new Uint8Array(length);
+    const n = readSync(fd, out, 0, length, 0);
+    return out.subarray(0, n);
+  } finally {
+    closeSync(fd);
+  }
+}
