@@ -11,6 +11,7 @@ import { UpdateTimerContext } from './perf/UpdateTimerContext';
 import { createIndexedDbStore } from './persist/indexedDbStore';
 import { createWorkspaceArchive } from './persist/workspaceArchive';
 import { AppStoreProvider } from './state/AppStoreContext';
+import { EngineContext } from './state/EngineContext';
 import { connectEngine } from './state/engineController';
 import { createAppStore } from './state/store';
 import { connectPermalink, connectPersistence, startWorkspace } from './state/workspaceController';
@@ -54,9 +55,11 @@ if (rootElement === null) throw new Error('index.html has no #root element.');
 createRoot(rootElement).render(
   <StrictMode>
     <AppStoreProvider store={store}>
-      <UpdateTimerContext.Provider value={updateTimer}>
-        <App />
-      </UpdateTimerContext.Provider>
+      <EngineContext.Provider value={client}>
+        <UpdateTimerContext.Provider value={updateTimer}>
+          <App />
+        </UpdateTimerContext.Provider>
+      </EngineContext.Provider>
     </AppStoreProvider>
   </StrictMode>,
 );

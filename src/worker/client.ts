@@ -11,6 +11,7 @@
  *   DspError that says so, and `onRestart` reports it to the page.
  */
 import type { WaveformConfig } from '../config/schema';
+import type { ExportReport } from '../io/exportMetadata';
 import { waveformBufferKeys, waveformBufferViews, type EngineWaveform, type GeneratedResponse } from './protocol';
 import {
   createWorkerPool,
@@ -46,8 +47,21 @@ export interface EngineClientOptions {
   poolSize?: number;
 }
 
+/** An IQ file built by the worker (src/io exportToMemory): the data, its metadata and the report. */
+export interface ExportedFiles {
+  data: Uint8Array;
+  metaText: string;
+  dataSuffix: string;
+  metaSuffix: string;
+  sha512Hex: string;
+  report: ExportReport;
+  elapsedMs: number;
+}
+
 export interface EngineClient {
   generate(config: unknown): Promise<EngineResult>;
+  /** Builds an export (newest wins: a new export supersedes one still running). */
+  exportFile(config: unknown, options: unknown): Promise<ExportedFiles>;
   /** The pool behind the client, for long runs that spread blocks over the workers (ccdfRun.ts). */
   readonly pool: WorkerPool;
   /** Terminates the workers; pending requests settle with SupersededError. */
@@ -90,5 +104,19 @@ export function createEngineClient(options: EngineClientOptions = {}): EngineCli
     return { requestId: response.id, config: response.config, waveform: rebuildWaveform(response), elapsedMs: response.elapsedMs };
   };
 
-  return { generate, pool, dispose: () => pool.dispose() };
+  const exportFile = async (config: unknown, options: unknown): Promise<ExportedFiles> => {
+    const { result } = pool.run({ type: 'export', config, options }, { lane: 'export', priority: 'interactive' });
+    const r = expectResponse(await result, 'exported');
+    return {
+      data: new Uint8Array(r.data),
+      metaText: r.metaText,
+      dataSuffix: r.dataSuffix,
+      metaSuffix: r.metaSuffix,
+      sha512Hex: r.sha512Hex,
+      report: r.report,
+      elapsedMs: r.elapsedMs,
+    };
+  };
+
+  return { generate, exportFile, pool, dispose: () => pool.dispose() };
 }

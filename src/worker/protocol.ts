@@ -13,9 +13,10 @@ import type { DspErrorCode } from '../dsp/errors';
 import type { AllocationPlan } from '../dsp/waveform/allocation';
 import type { GeneratedWaveform } from '../dsp/waveform/waveformGenerator';
 import type { WaveformPlan } from '../dsp/waveform/waveformPlan';
+import type { ExportReport } from '../io/exportMetadata';
 
 /** Bump when a message changes shape; a page and a worker from different builds then refuse each other. */
-export const PROTOCOL_VERSION = 1;
+export const PROTOCOL_VERSION = 2;
 export type ProtocolVersion = typeof PROTOCOL_VERSION;
 
 /** Id of the `ready` message the worker posts once at start-up (requests count from 1). */
@@ -41,7 +42,18 @@ export interface CancelRequest extends Envelope<'cancel'> {
   targetId: number;
 }
 
-export type WorkerRequest = GenerateRequest | CancelRequest;
+/**
+ * Build an IQ file in memory with the same src/io code the CLI streams to disk (exportToMemory), so
+ * the bytes are identical to `crestline generate` with the same configuration and options.
+ */
+export interface ExportRequest extends Envelope<'export'> {
+  /** Configuration input, validated by the worker. */
+  config: unknown;
+  /** Export options as `exportOptionsSchema` takes them (format, level, rate, offset, repeat…). */
+  options: unknown;
+}
+
+export type WorkerRequest = GenerateRequest | CancelRequest | ExportRequest;
 export type WorkerRequestType = WorkerRequest['type'];
 
 // ---------------------------------------------------------------------------------------------
@@ -122,13 +134,29 @@ export interface ErrorResponse extends Envelope<'error'> {
   details?: Record<string, unknown>;
 }
 
-export type WorkerResponse = ReadyResponse | GeneratedResponse | ErrorResponse;
+export interface ExportedResponse extends Envelope<'exported'> {
+  /** The data file, moved. */
+  data: ArrayBuffer;
+  /** The metadata file (SigMF meta or our sidecar), UTF-8 text. */
+  metaText: string;
+  dataSuffix: string;
+  metaSuffix: string;
+  sha512Hex: string;
+  dataBytes: number;
+  /** Level, peak, clipping, warnings: what the export dialog shows before the files are saved. */
+  report: ExportReport;
+  elapsedMs: number;
+}
+
+export type WorkerResponse = ReadyResponse | GeneratedResponse | ExportedResponse | ErrorResponse;
 export type WorkerResponseType = WorkerResponse['type'];
 
 /** The responses a request can be answered with. */
 export type ResponseFor<TRequest extends WorkerRequest> = TRequest extends GenerateRequest
   ? GeneratedResponse | ErrorResponse
-  : never;
+  : TRequest extends ExportRequest
+    ? ExportedResponse | ErrorResponse
+    : never;
 
 // ---------------------------------------------------------------------------------------------
 // Guards (messages arrive as `unknown`)
@@ -137,8 +165,8 @@ function isEnvelope(value: unknown): value is { type: unknown; id: unknown; prot
   return typeof value === 'object' && value !== null && 'type' in value && 'id' in value && 'protocolVersion' in value;
 }
 
-const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel'];
-const responseTypes: readonly WorkerResponseType[] = ['ready', 'generated', 'error'];
+const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel', 'export'];
+const responseTypes: readonly WorkerResponseType[] = ['ready', 'generated', 'exported', 'error'];
 
 /** True when `value` looks like a request of a known type (its version is checked separately). */
 export function isWorkerRequest(value: unknown): value is WorkerRequest {

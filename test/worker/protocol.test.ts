@@ -1,6 +1,7 @@
 import { describe, expectTypeOf, it, expect } from 'vitest';
 import type { WaveformConfig } from '../../src/config/schema';
 import type { DspErrorCode } from '../../src/dsp/errors';
+import type { ExportReport } from '../../src/io/exportMetadata';
 import { RE_DATA, RE_EMPTY, RE_REFERENCE, type GeneratedWaveform } from '../../src/dsp/waveform/waveformGenerator';
 import {
   GRID_KIND,
@@ -9,6 +10,8 @@ import {
   PROTOCOL_VERSION,
   waveformBufferKeys,
   type CancelRequest,
+  type ExportedResponse,
+  type ExportRequest,
   type EngineWaveform,
   type ErrorResponse,
   type GenerateRequest,
@@ -30,8 +33,10 @@ import {
 
 describe('protocol unions (compile time)', () => {
   it('discriminates requests and responses on type', () => {
-    expectTypeOf<WorkerRequestType>().toEqualTypeOf<'generate' | 'cancel'>();
-    expectTypeOf<WorkerResponseType>().toEqualTypeOf<'ready' | 'generated' | 'error'>();
+    expectTypeOf<WorkerRequestType>().toEqualTypeOf<'generate' | 'cancel' | 'export'>();
+    expectTypeOf<WorkerResponseType>().toEqualTypeOf<'ready' | 'generated' | 'exported' | 'error'>();
+    expectTypeOf<Extract<WorkerRequest, { type: 'export' }>>().toEqualTypeOf<ExportRequest>();
+    expectTypeOf<Extract<WorkerResponse, { type: 'exported' }>>().toEqualTypeOf<ExportedResponse>();
     expectTypeOf<Extract<WorkerRequest, { type: 'generate' }>>().toEqualTypeOf<GenerateRequest>();
     expectTypeOf<Extract<WorkerRequest, { type: 'cancel' }>>().toEqualTypeOf<CancelRequest>();
     expectTypeOf<Extract<WorkerResponse, { type: 'error' }>>().toEqualTypeOf<ErrorResponse>();
@@ -59,6 +64,13 @@ describe('protocol unions (compile time)', () => {
     expectTypeOf<GeneratedResponse['config']>().toEqualTypeOf<WaveformConfig>();
   });
 
+  it('answers an export request with the files (data moved as a buffer) or an error', () => {
+    expectTypeOf<ResponseFor<ExportRequest>>().toEqualTypeOf<ExportedResponse | ErrorResponse>();
+    expectTypeOf<ExportedResponse['data']>().toEqualTypeOf<ArrayBuffer>();
+    expectTypeOf<ExportedResponse['report']>().toEqualTypeOf<ExportReport>();
+    expectTypeOf<ExportRequest['options']>().toBeUnknown();
+  });
+
   it('moves every typed array of the waveform as an ArrayBuffer and clones the rest', () => {
     expectTypeOf<WaveformBufferKey>().toEqualTypeOf<'waveformIq' | 'gridIq' | 'gridKinds' | 'dataSymbolsIq' | 'bits'>();
     expectTypeOf<WaveformBufferKey>().toEqualTypeOf<TypedArrayKeys<GeneratedWaveform>>();
@@ -84,6 +96,7 @@ describe('protocol guards', () => {
   it('accepts well-formed requests and rejects others', () => {
     expect(isWorkerRequest({ ...envelope, type: 'generate', config: {} })).toBe(true);
     expect(isWorkerRequest({ ...envelope, type: 'cancel', targetId: 2 })).toBe(true);
+    expect(isWorkerRequest({ ...envelope, type: 'export', config: {}, options: {} })).toBe(true);
     expect(isWorkerRequest({ ...envelope, type: 'cancel' })).toBe(false);
     expect(isWorkerRequest({ ...envelope, type: 'explode' })).toBe(false);
     expect(isWorkerRequest({ type: 'generate', config: {} })).toBe(false);

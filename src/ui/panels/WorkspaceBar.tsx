@@ -1,6 +1,7 @@
 import { useRef, useState } from 'react';
 import { configFileName, formatConfigJson, parseConfigFile } from '../persist/configFile';
 import { downloadFile } from '../download';
+import { ExportDialog } from '../export/ExportDialog';
 import { useAppStore } from '../state/AppStoreContext';
 
 /** Header tools: the configuration as a CLI JSON file (save, open) and the permalink. */
@@ -11,6 +12,7 @@ export function WorkspaceBar() {
   const replaceDraft = useAppStore((state) => state.replaceDraft);
   const fileRef = useRef<HTMLInputElement>(null);
   const [message, setMessage] = useState<{ kind: 'info' | 'error'; text: string } | null>(null);
+  const [exportOpen, setExportOpen] = useState(false);
   const valid = Object.keys(fieldErrors).length === 0;
 
   const copyLink = async () => {
@@ -63,6 +65,10 @@ export function WorkspaceBar() {
       <button type="button" className="button" onClick={() => void copyLink()}>
         Copy link
       </button>
+      <button type="button" className="button button-primary" onClick={() => setExportOpen(true)}>
+        Export IQ…
+      </button>
+      <ExportDialog open={exportOpen} onClose={() => setExportOpen(false)} />
       {message !== null && (
         <span className={message.kind === 'error' ? 'bar-message field-error' : 'bar-message'} role={message.kind === 'error' ? 'alert' : 'status'}>
           {message.text}
