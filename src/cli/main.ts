@@ -1,10 +1,13 @@
 import { Command, CommanderError } from 'commander';
 import { reportCliError } from './cliErrors';
+import { registerAnalyze } from './commands/analyze';
+import { registerBackoff } from './commands/backoff';
 import { registerGenerate } from './commands/generate';
 import { registerInspect } from './commands/inspect';
+import { registerLink } from './commands/link';
 
 /** Every subcommand registers itself here; each lives in src/cli/commands/<name>.ts. */
-const COMMANDS: readonly ((program: Command, io: CliIo) => void)[] = [registerGenerate, registerInspect];
+const COMMANDS: readonly ((program: Command, io: CliIo) => void)[] = [registerGenerate, registerInspect, registerAnalyze, registerLink, registerBackoff];
 
 /** Where a command prints; tests pass their own. */
 export interface CliIo {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { MODULATIONS } from '../dsp/modulation/constellations';
+import { amplifierSchema, impairmentsSchema, paprReductionSchema, spectrumShapingSchema, windowingSchema } from './transmitterSchema';
 
 /**
  * The one description of a waveform, shared by the CLI, the worker and the UI. `parseWaveformConfig` (configParse.ts)
@@ -40,6 +41,35 @@ const customSchema = z
   })
   .strict();
 
+/**
+ * Reference signals (off unless `enabled`). Which signal is generated follows from standard, link and waveform:
+ * LTE uplink PUSCH DMRS (TS 36.211 §5.5.2.1), LTE downlink CRS port 0 (§6.10.1), NR PUSCH DMRS (TS 38.211 §6.4.1.1),
+ * low-PAPR type 1 with transform precoding, Gold-sequence type 1 without. Group and sequence hopping are off.
+ */
+export const referenceSignalsSchema = z
+  .object({
+    enabled: z.boolean({ error: 'must be true or false' }).default(false),
+    /** Sequence-group number u (0…29): LTE PUSCH DMRS and NR transform-precoded DMRS. */
+    groupNumber: z.number({ error: 'must be a whole number from 0 to 29' }).int().min(0).max(29).default(0),
+    /** Base-sequence number v within the group (0 or 1); used only for sequences of 72 or more elements. */
+    sequenceNumber: z.number({ error: 'must be 0 or 1' }).int().min(0).max(1).default(0),
+    /** LTE PUSCH DMRS cyclic shift n_cs (0…11): α = 2π·n_cs/12, the same in every slot. */
+    cyclicShift: z.number({ error: 'must be a whole number from 0 to 11' }).int().min(0).max(11).default(0),
+    /** LTE downlink CRS: physical cell identity N_ID^cell (0…503). */
+    cellId: z.number({ error: 'must be a whole number from 0 to 503' }).int().min(0).max(503).default(0),
+    /** NR CP-OFDM DMRS: scrambling identity N_ID (0…65535). */
+    scramblingId: z.number({ error: 'must be a whole number from 0 to 65535' }).int().min(0).max(65535).default(0),
+    /** NR CP-OFDM DMRS: n_SCID (0 or 1). */
+    nScid: z.number({ error: 'must be 0 or 1' }).int().min(0).max(1).default(0),
+    /** NR: single-symbol DMRS positions within each slot (symbol indices, ascending); default 2, 7, 11. */
+    dmrsSymbols: z
+      .array(z.number({ error: 'must be symbol indices 0…13' }).int().min(0).max(13))
+      .min(1, 'must list at least one symbol')
+      .max(4, 'may list at most 4 symbols')
+      .optional(),
+  })
+  .strict();
+
 /** Largest number of OFDM symbols one configuration may describe (10 s of LTE normal CP). */
 export const MAX_SYMBOLS = 140000;
 
@@ -66,8 +96,16 @@ export const waveformConfigSchema = z
     oversampling: z.number({ error: 'must be a whole number from 1 to 16' }).int().min(1).max(16).default(1),
     /** Carrier frequency f0 in Hz: NR applies the §5.4 phase term; recorded in file metadata. */
     carrierFrequencyHz: z.number().positive().max(300e9).optional(),
+    /** Reference signals; absent means off (data-only waveform). */
+    referenceSignals: referenceSignalsSchema.optional(),
     /** Research numerology for standard "custom". */
     custom: customSchema.optional(),
+    /** Transmitter sub-objects (transmitterSchema.ts); each is off when absent. */
+    spectrumShaping: spectrumShapingSchema.optional(),
+    windowing: windowingSchema.optional(),
+    paprReduction: paprReductionSchema.optional(),
+    impairments: impairmentsSchema.optional(),
+    amplifier: amplifierSchema.optional(),
   })
   .strict();
 
@@ -75,4 +113,5 @@ export const waveformConfigSchema = z
 export type WaveformConfigInput = z.input<typeof waveformConfigSchema>;
 /** A validated configuration with defaults applied. */
 export type WaveformConfig = z.output<typeof waveformConfigSchema>;
+export type ReferenceSignalsConfig = z.output<typeof referenceSignalsSchema>;
 export type AllocationBlockInput = z.input<typeof allocationBlockSchema>;

@@ -2,6 +2,7 @@ import type { WaveformConfig } from '../../config/schema';
 import { DspError } from '../errors';
 import type { Modulation } from '../modulation/constellations';
 import type { Numerology } from '../numerology/numerology';
+import type { SpectrumShapingPlan } from '../shaping/spectrumShaping';
 import { checkDftSpreadSize } from './transformPrecoding';
 
 /** One allocated block after defaults: its data subcarriers, modulation and amplitude. */
@@ -14,6 +15,13 @@ export interface AllocationPlan {
   readonly amplitudeLinear: number;
   /** Grid subcarrier indices k' carrying this block's data, ascending. */
   readonly dataSubcarriers: Int32Array;
+  /** DFT-s-OFDM spectrum shaping (config.spectrumShaping): the window and the M + E grid subcarriers it fills. */
+  readonly shaping?: { readonly plan: SpectrumShapingPlan; readonly subcarriers: Int32Array };
+}
+
+/** Grid subcarriers a block actually occupies: its shaped span when spectrum shaping is on, else its data subcarriers. */
+export function occupiedSubcarriers(block: AllocationPlan): Int32Array {
+  return block.shaping?.subcarriers ?? block.dataSubcarriers;
 }
 
 /**

@@ -4,14 +4,14 @@ import { DspError } from '../errors';
 import { bitsPerSymbol as bitsPerSymbolOf } from '../modulation/constellations';
 import { mapBitsToSymbols } from '../modulation/mapper';
 import { createDftSpreadPlan, spreadDft } from './transformPrecoding';
+import { applySpectrumShaping } from '../shaping/spectrumShaping';
 import { createOfdmWorkspace, ofdmModulateSymbol, symbolLengthValues, type OfdmWorkspace } from './ofdmModulator';
-import { createWaveformPlan, symbolLayoutOf, type SymbolLayout, type WaveformPlan } from './waveformPlan';
+import { createWaveformPlan, dataSubcarriersOf, symbolLayoutOf, type SymbolLayout, type WaveformPlan } from './waveformPlan';
 import type { FftPlan } from '../fft/fftPlan';
+import { fillReferenceSignals } from '../reference/referenceSignalMapper';
+import { RE_DATA } from './resourceKinds';
 
-/** Kind of each resource element in `gridKinds`. */
-export const RE_EMPTY = 0;
-export const RE_DATA = 1;
-export const RE_REFERENCE = 2;
+export { RE_DATA, RE_EMPTY, RE_REFERENCE } from './resourceKinds';
 
 /** A run of consecutive OFDM symbols. */
 export interface SymbolBatch {
@@ -47,6 +47,7 @@ export function createWaveformGenerator(plan: WaveformPlan): WaveformGenerator {
   }
   const maxBlock = Math.max(...plan.allocations.map((a) => a.dataSubcarriers.length));
   const spreadIq = new Float64Array(2 * maxBlock);
+  const shapedIq = new Float64Array(2 * Math.max(...plan.allocations.map((a) => a.shaping?.subcarriers.length ?? 0)));
   const blockCounters = plan.allocations.map(() => 0);
   const k = plan.numerology.numGridSubcarriers;
   let next = 0;
@@ -61,12 +62,19 @@ export function createWaveformGenerator(plan: WaveformPlan): WaveformGenerator {
         throw new DspError('INTERNAL', `generate() needs a whole, non-negative symbol count; got ${numSymbols}.`);
       }
       let totalValues = 0;
-      for (let l = next; l < next + numSymbols; l++) totalValues += symbolLengthValues(plan.ofdm, l);
+      let totalData = 0;
+      let totalBits = 0;
+      const period = plan.dataSymbolsPerSlotSymbol.length;
+      for (let l = next; l < next + numSymbols; l++) {
+        totalValues += symbolLengthValues(plan.ofdm, l);
+        totalData += plan.dataSymbolsPerSlotSymbol[l % period]!;
+        totalBits += plan.bitsPerSlotSymbol[l % period]!;
+      }
       const waveformIq = new Float64Array(totalValues);
       const gridIq = new Float64Array(2 * k * numSymbols);
       const gridKinds = new Uint8Array(k * numSymbols);
-      const dataSymbolsIq = new Float64Array(2 * plan.dataSymbolsPerOfdmSymbol * numSymbols);
-      const bits = new Uint8Array(plan.bitsPerOfdmSymbol * numSymbols);
+      const dataSymbolsIq = new Float64Array(2 * totalData);
+      const bits = new Uint8Array(totalBits);
       let sampleOffset = 0;
       let bitOffset = 0;
       let dataOffset = 0;
@@ -75,7 +83,10 @@ export function createWaveformGenerator(plan: WaveformPlan): WaveformGenerator {
         const row = gridIq.subarray(2 * k * s, 2 * k * (s + 1));
         const kinds = gridKinds.subarray(k * s, k * (s + 1));
         plan.allocations.forEach((a, blockIndex) => {
-          const m = a.dataSubcarriers.length;
+          const dataSubcarriers = dataSubcarriersOf(plan, l, blockIndex);
+          const m = dataSubcarriers.length;
+          // Reference-signal symbols of DFT-s-OFDM leave no data in the block (m = 0); OFDM ones may leave some.
+          if (m === 0) return;
           const nBits = m * bitsPerSymbolOf(a.modulation);
           const blockBits = bitStream.fill(bits.subarray(bitOffset, bitOffset + nBits));
           const symbolsIq = dataSymbolsIq.subarray(2 * dataOffset, 2 * (dataOffset + m));
@@ -83,9 +94,14 @@ export function createWaveformGenerator(plan: WaveformPlan): WaveformGenerator {
           blockCounters[blockIndex]! += m;
           let source: Float64Array = symbolsIq;
           if (plan.waveform === 'dft-s-ofdm') source = spreadDft(spreadPlans.get(m)!, symbolsIq, spreadIq.subarray(0, 2 * m));
+          let subcarriers = dataSubcarriers;
+          if (a.shaping) {
+            subcarriers = a.shaping.subcarriers;
+            source = applySpectrumShaping(a.shaping.plan, source, shapedIq.subarray(0, 2 * subcarriers.length));
+          }
           const amp = a.amplitudeLinear;
-          for (let i = 0; i < m; i++) {
-            const g = a.dataSubcarriers[i]!;
+          for (let i = 0; i < subcarriers.length; i++) {
+            const g = subcarriers[i]!;
             row[2 * g] = source[2 * i]! * amp;
             row[2 * g + 1] = source[2 * i + 1]! * amp;
             kinds[g] = RE_DATA;
@@ -93,6 +109,7 @@ export function createWaveformGenerator(plan: WaveformPlan): WaveformGenerator {
           bitOffset += nBits;
           dataOffset += m;
         });
+        fillReferenceSignals(plan.referenceSignals, l, row, kinds);
         const length = symbolLengthValues(plan.ofdm, l);
         ofdmModulateSymbol(plan.ofdm, l, row, workspace, waveformIq.subarray(sampleOffset, sampleOffset + length));
         sampleOffset += length;

@@ -2,8 +2,10 @@ import type { WaveformConfig } from '../../config/schema';
 import { DspError } from '../errors';
 import { bitsPerSymbol } from '../modulation/constellations';
 import { resolveNumerology, type Numerology } from '../numerology/numerology';
+import { createReferenceSignalPlan, type ReferenceSignalPlan } from '../reference/referenceSignalPlan';
 import { resolveAllocations, type AllocationPlan } from './allocation';
 import { createOfdmPlan, type OfdmPlan } from './ofdmModulator';
+import { attachSpectrumShaping } from '../shaping/blockShaping';
 
 /** Layout of one OFDM symbol in the generated sample stream (all lengths at the output rate, oversampling included). */
 export interface SymbolLayout {
@@ -22,9 +24,20 @@ export interface WaveformPlan {
   readonly numerology: Numerology;
   readonly ofdm: OfdmPlan;
   readonly allocations: readonly AllocationPlan[];
-  /** Data symbols (before spreading) per OFDM symbol, over all blocks. */
+  /** Data symbols (before spreading) of an OFDM symbol without reference signals, over all blocks. */
   readonly dataSymbolsPerOfdmSymbol: number;
+  /** Bits of an OFDM symbol without reference signals. */
   readonly bitsPerOfdmSymbol: number;
+  /** Reference signals (kind 'none' when off) and the data subcarriers left in each symbol of a slot. */
+  readonly referenceSignals: ReferenceSignalPlan;
+  /** Data symbols in symbol l of any slot, indexed by l mod symbolsPerSlot (equal to dataSymbolsPerOfdmSymbol without RS). */
+  readonly dataSymbolsPerSlotSymbol: readonly number[];
+  /** Bits in symbol l of any slot, indexed by l mod symbolsPerSlot. */
+  readonly bitsPerSlotSymbol: readonly number[];
+  /** Data symbols of the whole configuration (config.symbols OFDM symbols). */
+  readonly numDataSymbols: number;
+  /** Payload bits of the whole configuration. */
+  readonly numBits: number;
   readonly numSamples: number;
   readonly sampleRateHz: number;
   readonly warnings: readonly string[];
@@ -49,13 +62,24 @@ export function createWaveformPlan(config: WaveformConfig): WaveformPlan {
     });
   }
   const numerology = resolveNumerology(config);
-  const allocations = resolveAllocations(config, numerology, waveform);
+  const allocations = attachSpectrumShaping(resolveAllocations(config, numerology, waveform), config, numerology, waveform);
   const ofdm = createOfdmPlan(numerology, config.oversampling, config.carrierFrequencyHz);
   let dataSymbolsPerOfdmSymbol = 0;
   let bitsPerOfdmSymbol = 0;
   for (const a of allocations) {
     dataSymbolsPerOfdmSymbol += a.dataSubcarriers.length;
     bitsPerOfdmSymbol += a.dataSubcarriers.length * bitsPerSymbol(a.modulation);
+  }
+  const referenceSignals = createReferenceSignalPlan(config, numerology, allocations, waveform);
+  const dataSymbolsPerSlotSymbol = referenceSignals.dataLayout.map((blocks) => blocks.reduce((sum, sc) => sum + sc.length, 0));
+  const bitsPerSlotSymbol = referenceSignals.dataLayout.map((blocks) =>
+    blocks.reduce((sum, sc, i) => sum + sc.length * bitsPerSymbol(allocations[i]!.modulation), 0),
+  );
+  let numDataSymbols = 0;
+  let numBits = 0;
+  for (let l = 0; l < config.symbols; l++) {
+    numDataSymbols += dataSymbolsPerSlotSymbol[l % dataSymbolsPerSlotSymbol.length]!;
+    numBits += bitsPerSlotSymbol[l % bitsPerSlotSymbol.length]!;
   }
   let numSamples = 0;
   for (let l = 0; l < config.symbols; l++) numSamples += ofdm.ifftSize + ofdm.cpLengthsSamples[l % ofdm.cpLengthsSamples.length]!;
@@ -74,6 +98,11 @@ export function createWaveformPlan(config: WaveformConfig): WaveformPlan {
     allocations,
     dataSymbolsPerOfdmSymbol,
     bitsPerOfdmSymbol,
+    referenceSignals,
+    dataSymbolsPerSlotSymbol,
+    bitsPerSlotSymbol,
+    numDataSymbols,
+    numBits,
     numSamples,
     sampleRateHz: numerology.sampleRateHz * config.oversampling,
     warnings,
@@ -95,4 +124,10 @@ export function symbolLayoutOf(plan: WaveformPlan, symbolIndex: number): SymbolL
     cpLengthSamples: cps[symbolIndex % period]!,
     fftSize: plan.ofdm.ifftSize,
   };
+}
+
+/** Data subcarriers of allocation block `blockIndex` in OFDM symbol `symbolIndex` (those the reference signals leave). */
+export function dataSubcarriersOf(plan: WaveformPlan, symbolIndex: number, blockIndex: number): Int32Array {
+  const layout = plan.referenceSignals.dataLayout;
+  return layout[symbolIndex % layout.length]![blockIndex]!;
 }

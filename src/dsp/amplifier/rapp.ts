@@ -1,0 +1,70 @@
+import { applyMemoryless, dbToAmplitude, requirePositive, type AmplifierModel } from './amplifierModel';
+
+/** Optional AM/PM of the "modified Rapp" form Φ(r) = α·r^q / (1 + (r/β)^q) degrees, r the input amplitude. */
+export interface RappAmPm {
+  /** α, degrees per unit input amplitude^q. */
+  readonly alphaDeg: number;
+  /** β, input amplitude where the phase curve bends over (> 0). */
+  readonly betaAmplitude: number;
+  /** q, exponent (> 0). */
+  readonly exponent: number;
+}
+
+export interface RappParams {
+  /** Smoothness p (> 0); p → ∞ gives the ideal soft limiter. Typical solid-state PAs: 2…3. */
+  readonly smoothness: number;
+  /** A_sat: the OUTPUT saturation amplitude (default 1). */
+  readonly outputSaturationAmplitude?: number;
+  /** Small-signal gain G, dB (default 0). */
+  readonly gainDb?: number;
+  /** AM/PM; omitted = none (Rapp's original model has no AM/PM). */
+  readonly amPm?: RappAmPm;
+}
+
+/**
+ * Rapp's solid-state amplifier model (C. Rapp, "Effects of HPA-nonlinearity on a 4-DPSK/OFDM-signal for a
+ * digital sound broadcasting system", 2nd European Conf. on Satellite Communications, Liège, 1991):
+ *   A(r) = G·r / [1 + (G·r / A_sat)^{2p}]^{1/(2p)}.
+ * Here **A_sat refers to the output**: A(r) → A_sat as r → ∞, and the input saturation amplitude is r_sat = A_sat/G
+ * (where the linear gain line meets A_sat). At r = r_sat the gain has dropped by 10·log10(2)/p dB (derived:
+ * A(r_sat) = A_sat·2^{−1/(2p)}, i.e. 1.505 dB at p = 2).
+ * AM/PM (optional) uses the form given for the "modified Rapp" model in the IEEE 802.11ad evaluation
+ * methodology and 3GPP NR PA studies (from memory — verify): Φ(r) = α·r^q / (1 + (r/β)^q) degrees.
+ */
+export function createRappModel(params: RappParams): AmplifierModel {
+  const p = params.smoothness;
+  requirePositive(p, 'amplifier.smoothness');
+  const aSat = params.outputSaturationAmplitude ?? 1;
+  requirePositive(aSat, 'amplifier.outputSaturationAmplitude');
+  const gain = dbToAmplitude(params.gainDb ?? 0);
+  requirePositive(gain, 'amplifier.gainDb (as a linear gain)');
+  const amPm = params.amPm;
+  if (amPm) {
+    requirePositive(amPm.betaAmplitude, 'amplifier.amPm.betaAmplitude');
+    requirePositive(amPm.exponent, 'amplifier.amPm.exponent');
+  }
+  const twoP = 2 * p;
+  const amAm = (r: number): number => {
+    const u = (gain * r) / aSat;
+    // For large u, u^{2p} overflows: A → A_sat·u/(u^{2p})^{1/2p} = A_sat.
+    const power = u ** twoP;
+    if (!Number.isFinite(power)) return aSat;
+    return (gain * r) / (1 + power) ** (1 / twoP);
+  };
+  const amPmRad = amPm
+    ? (r: number): number => ((amPm.alphaDeg * r ** amPm.exponent) / (1 + (r / amPm.betaAmplitude) ** amPm.exponent)) * (Math.PI / 180)
+    : (): number => 0;
+  const model: AmplifierModel = {
+    kind: 'rapp',
+    description: `Rapp p = ${p}, G = ${(params.gainDb ?? 0).toFixed(2)} dB, A_sat = ${aSat} (output)${amPm ? `, AM/PM α = ${amPm.alphaDeg}°, β = ${amPm.betaAmplitude}, q = ${amPm.exponent}` : ''}`,
+    smallSignalGainLinear: gain,
+    inputSaturationAmplitude: aSat / gain,
+    outputSaturationAmplitude: aSat,
+    memoryless: true,
+    amAm,
+    amPmRad,
+    apply: (inIq, inputScale, outIq) => applyMemoryless(model, amPm !== undefined, inIq, inputScale, outIq),
+    warnings: [],
+  };
+  return model;
+}

@@ -1,0 +1,34 @@
+import type { Modulation } from '../modulation/constellations';
+
+/**
+ * RMS EVM limits per modulation, in percent.
+ * - LTE UE, TS 36.101 §6.5.2.1 Table 6.5.2.1.1-1: QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5 (Rel-14+).
+ * - LTE BS, TS 36.104 §6.5.2 Table 6.5.2-1: QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5, 1024QAM 2.5 (Rel-15+).
+ * - NR UE, TS 38.101-1 §6.4.2.1 Table 6.4.2.1-1: π/2-BPSK 30, QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5.
+ * - NR BS, TS 38.104 Table 6.5.2.2-1: QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5 [S2]; 1024QAM 2.5 (from memory — verify).
+ * The uplink is held to the UE limits and the downlink to the BS limits. Values per REFERENCE.md §5.4; cells marked there
+ * "from memory — verify" stay so. Plain BPSK has no PUSCH/PDSCH limit and custom numerologies none at all.
+ */
+export interface EvmLimit {
+  readonly limitPercent: number | undefined;
+  readonly source: string;
+}
+
+const LTE_UE: Partial<Record<Modulation, number>> = { qpsk: 17.5, '16qam': 12.5, '64qam': 8, '256qam': 3.5 };
+const LTE_BS: Partial<Record<Modulation, number>> = { qpsk: 17.5, '16qam': 12.5, '64qam': 8, '256qam': 3.5, '1024qam': 2.5 };
+const NR_UE: Partial<Record<Modulation, number>> = { 'pi/2-bpsk': 30, qpsk: 17.5, '16qam': 12.5, '64qam': 8, '256qam': 3.5 };
+const NR_BS: Partial<Record<Modulation, number>> = { qpsk: 17.5, '16qam': 12.5, '64qam': 8, '256qam': 3.5, '1024qam': 2.5 };
+
+export function evmLimitFor(standard: 'lte' | 'nr' | 'custom', link: 'uplink' | 'downlink', modulation: Modulation): EvmLimit {
+  if (standard === 'custom') return { limitPercent: undefined, source: 'no limit: custom numerology' };
+  const [table, source] =
+    standard === 'lte'
+      ? link === 'uplink'
+        ? [LTE_UE, 'TS 36.101 Table 6.5.2.1.1-1']
+        : [LTE_BS, 'TS 36.104 Table 6.5.2-1']
+      : link === 'uplink'
+        ? [NR_UE, 'TS 38.101-1 Table 6.4.2.1-1']
+        : [NR_BS, 'TS 38.104 Table 6.5.2.2-1'];
+  const limitPercent = table[modulation];
+  return limitPercent === undefined ? { limitPercent, source: `no ${modulation} limit in ${source}` } : { limitPercent, source };
+}
