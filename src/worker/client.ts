@@ -12,6 +12,7 @@
  */
 import type { WaveformConfig } from '../config/schema';
 import type { ExportReport } from '../io/exportMetadata';
+import type { AmplifierPayload, EvmPayload, SpectrumPayload } from './measurementTypes';
 import { waveformBufferKeys, waveformBufferViews, type EngineWaveform, type GeneratedResponse } from './protocol';
 import {
   createWorkerPool,
@@ -58,10 +59,53 @@ export interface ExportedFiles {
   elapsedMs: number;
 }
 
+/** A spectrum payload with its arrays viewed again. */
+export type SpectrumData = SpectrumPayload<Float64Array>;
+export type AmplifierData = AmplifierPayload<Float64Array>;
+export type EvmData = EvmPayload<Float64Array>;
+
+export interface SpectrumResult {
+  config: WaveformConfig;
+  waveform: SpectrumData;
+  transmitted: SpectrumData | null;
+  amplifier: AmplifierData | null;
+  elapsedMs: number;
+}
+
+export interface EvmResult {
+  config: WaveformConfig;
+  evm: EvmData;
+  elapsedMs: number;
+}
+
+function viewSpectrum(p: SpectrumPayload): SpectrumData {
+  return { ...p, frequenciesHz: new Float64Array(p.frequenciesHz), psdPerHz: new Float64Array(p.psdPerHz) };
+}
+
+function viewAmplifier(p: AmplifierPayload): AmplifierData {
+  return {
+    ...p,
+    inputDbRelSat: new Float64Array(p.inputDbRelSat),
+    outputDbRelSat: new Float64Array(p.outputDbRelSat),
+    gainCompressionDb: new Float64Array(p.gainCompressionDb),
+    phaseDeg: new Float64Array(p.phaseDeg),
+  };
+}
+
+/** Lane and priority of each kind of request (newest wins within a lane). */
+export interface RequestRouting {
+  lane?: string;
+  priority?: 'interactive' | 'background';
+}
+
 export interface EngineClient {
   generate(config: unknown): Promise<EngineResult>;
   /** Builds an export (newest wins: a new export supersedes one still running). */
   exportFile(config: unknown, options: unknown): Promise<ExportedFiles>;
+  /** Spectrum, ACLR, OBW (and after the transmitter chain, with amplifier curves). Default lane "spectrum". */
+  spectrum(config: unknown, routing?: RequestRouting): Promise<SpectrumResult>;
+  /** EVM of the transmitted waveform. Default lane "evm". */
+  evm(config: unknown, routing?: RequestRouting): Promise<EvmResult>;
   /** The pool behind the client, for long runs that spread blocks over the workers (ccdfRun.ts). */
   readonly pool: WorkerPool;
   /** Terminates the workers; pending requests settle with SupersededError. */
@@ -118,5 +162,29 @@ export function createEngineClient(options: EngineClientOptions = {}): EngineCli
     };
   };
 
-  return { generate, exportFile, pool, dispose: () => pool.dispose() };
+  const route = (routing: RequestRouting | undefined, lane: string) => ({ lane: routing?.lane ?? lane, priority: routing?.priority ?? 'interactive' });
+
+  const spectrum = async (config: unknown, routing?: RequestRouting): Promise<SpectrumResult> => {
+    const { result } = pool.run({ type: 'spectrum', config }, route(routing, 'spectrum'));
+    const r = expectResponse(await result, 'spectrum-result');
+    return {
+      config: r.config,
+      waveform: viewSpectrum(r.waveform),
+      transmitted: r.transmitted === null ? null : viewSpectrum(r.transmitted),
+      amplifier: r.amplifier === null ? null : viewAmplifier(r.amplifier),
+      elapsedMs: r.elapsedMs,
+    };
+  };
+
+  const evm = async (config: unknown, routing?: RequestRouting): Promise<EvmResult> => {
+    const { result } = pool.run({ type: 'evm', config }, route(routing, 'evm'));
+    const r = expectResponse(await result, 'evm-result');
+    return {
+      config: r.config,
+      evm: { ...r.evm, constellationIq: r.evm.constellationIq === null ? null : new Float64Array(r.evm.constellationIq) },
+      elapsedMs: r.elapsedMs,
+    };
+  };
+
+  return { generate, exportFile, spectrum, evm, pool, dispose: () => pool.dispose() };
 }

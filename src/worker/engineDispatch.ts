@@ -24,7 +24,9 @@ import {
   type WorkerRequest,
   type WorkerResponse,
 } from './protocol';
+import { runEvmRequest } from './handlers/evmHandler';
 import { runExportRequest } from './handlers/exportHandler';
+import { runSpectrumRequest } from './handlers/spectrumHandler';
 
 export interface EngineDispatchHost {
   /** Posts a response, moving the listed buffers. */
@@ -130,6 +132,8 @@ function runGenerate(request: GenerateRequest, startMs: number, host: EngineDisp
 const handlers: { [K in Handled['type']]: Handler<Extract<Handled, { type: K }>> } = {
   generate: runGenerate,
   export: runExportRequest,
+  spectrum: runSpectrumRequest,
+  evm: runEvmRequest,
 };
 
 function handle(request: Handled, host: EngineDispatchHost): void {

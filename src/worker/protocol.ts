@@ -14,6 +14,7 @@ import type { AllocationPlan } from '../dsp/waveform/allocation';
 import type { GeneratedWaveform } from '../dsp/waveform/waveformGenerator';
 import type { WaveformPlan } from '../dsp/waveform/waveformPlan';
 import type { ExportReport } from '../io/exportMetadata';
+import type { AmplifierPayload, EvmPayload, SpectrumPayload } from './measurementTypes';
 
 /** Bump when a message changes shape; a page and a worker from different builds then refuse each other. */
 export const PROTOCOL_VERSION = 2;
@@ -53,7 +54,19 @@ export interface ExportRequest extends Envelope<'export'> {
   options: unknown;
 }
 
-export type WorkerRequest = GenerateRequest | CancelRequest | ExportRequest;
+/** Spectrum (Welch PSD, ACLR, OBW) of the waveform and, with a transmitter chain, of what it transmits; amplifier curves. */
+export interface SpectrumRequest extends Envelope<'spectrum'> {
+  config: unknown;
+  /** Symbols analysed (default: the configuration's, at least 14). */
+  symbols?: number;
+}
+
+/** EVM of the transmitted waveform through the reference receiver. */
+export interface EvmRequest extends Envelope<'evm'> {
+  config: unknown;
+}
+
+export type WorkerRequest = GenerateRequest | CancelRequest | ExportRequest | SpectrumRequest | EvmRequest;
 export type WorkerRequestType = WorkerRequest['type'];
 
 // ---------------------------------------------------------------------------------------------
@@ -148,7 +161,23 @@ export interface ExportedResponse extends Envelope<'exported'> {
   elapsedMs: number;
 }
 
-export type WorkerResponse = ReadyResponse | GeneratedResponse | ExportedResponse | ErrorResponse;
+export interface SpectrumResponse extends Envelope<'spectrum-result'> {
+  config: WaveformConfig;
+  /** The generated waveform's spectrum (src/dsp/metrics/spectrumMeasurement.ts). */
+  waveform: SpectrumPayload;
+  /** After PAPR reduction, windowing, impairments and the amplifier, when any is configured. */
+  transmitted: SpectrumPayload | null;
+  amplifier: AmplifierPayload | null;
+  elapsedMs: number;
+}
+
+export interface EvmResponse extends Envelope<'evm-result'> {
+  config: WaveformConfig;
+  evm: EvmPayload;
+  elapsedMs: number;
+}
+
+export type WorkerResponse = ReadyResponse | GeneratedResponse | ExportedResponse | SpectrumResponse | EvmResponse | ErrorResponse;
 export type WorkerResponseType = WorkerResponse['type'];
 
 /** The responses a request can be answered with. */
@@ -156,7 +185,11 @@ export type ResponseFor<TRequest extends WorkerRequest> = TRequest extends Gener
   ? GeneratedResponse | ErrorResponse
   : TRequest extends ExportRequest
     ? ExportedResponse | ErrorResponse
-    : never;
+    : TRequest extends SpectrumRequest
+      ? SpectrumResponse | ErrorResponse
+      : TRequest extends EvmRequest
+        ? EvmResponse | ErrorResponse
+        : never;
 
 // ---------------------------------------------------------------------------------------------
 // Guards (messages arrive as `unknown`)
@@ -165,8 +198,8 @@ function isEnvelope(value: unknown): value is { type: unknown; id: unknown; prot
   return typeof value === 'object' && value !== null && 'type' in value && 'id' in value && 'protocolVersion' in value;
 }
 
-const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel', 'export'];
-const responseTypes: readonly WorkerResponseType[] = ['ready', 'generated', 'exported', 'error'];
+const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel', 'export', 'spectrum', 'evm'];
+const responseTypes: readonly WorkerResponseType[] = ['ready', 'generated', 'exported', 'spectrum-result', 'evm-result', 'error'];
 
 /** True when `value` looks like a request of a known type (its version is checked separately). */
 export function isWorkerRequest(value: unknown): value is WorkerRequest {

@@ -10,7 +10,11 @@ import {
   PROTOCOL_VERSION,
   waveformBufferKeys,
   type CancelRequest,
+  type EvmRequest,
+  type EvmResponse,
   type ExportedResponse,
+  type SpectrumRequest,
+  type SpectrumResponse,
   type ExportRequest,
   type EngineWaveform,
   type ErrorResponse,
@@ -33,8 +37,11 @@ import {
 
 describe('protocol unions (compile time)', () => {
   it('discriminates requests and responses on type', () => {
-    expectTypeOf<WorkerRequestType>().toEqualTypeOf<'generate' | 'cancel' | 'export'>();
-    expectTypeOf<WorkerResponseType>().toEqualTypeOf<'ready' | 'generated' | 'exported' | 'error'>();
+    expectTypeOf<WorkerRequestType>().toEqualTypeOf<'generate' | 'cancel' | 'export' | 'spectrum' | 'evm'>();
+    expectTypeOf<WorkerResponseType>().toEqualTypeOf<'ready' | 'generated' | 'exported' | 'spectrum-result' | 'evm-result' | 'error'>();
+    expectTypeOf<ResponseFor<SpectrumRequest>>().toEqualTypeOf<SpectrumResponse | ErrorResponse>();
+    expectTypeOf<ResponseFor<EvmRequest>>().toEqualTypeOf<EvmResponse | ErrorResponse>();
+    expectTypeOf<SpectrumResponse['waveform']['psdPerHz']>().toEqualTypeOf<ArrayBuffer>();
     expectTypeOf<Extract<WorkerRequest, { type: 'export' }>>().toEqualTypeOf<ExportRequest>();
     expectTypeOf<Extract<WorkerResponse, { type: 'exported' }>>().toEqualTypeOf<ExportedResponse>();
     expectTypeOf<Extract<WorkerRequest, { type: 'generate' }>>().toEqualTypeOf<GenerateRequest>();
