@@ -59,7 +59,7 @@ describe('EVM request', () => {
     expect(clean.evm.perSymbolPercent).toHaveLength(14);
     const compressed = await c.evm({ ...base, amplifier: hardPa });
     expect(compressed.evm.evmRmsPercent).toBeGreaterThan(1);
-    expect(compressed.evm.evmLimitPercent).toBe(17.5); // QPSK UE EVM limit 17.5 %, TS 36.101 §6.5.2.1 (from memory)
+    expect(compressed.evm.evmLimitPercent).toBe(17.5); // QPSK UE EVM limit 17.5 %, TS 36.101 Table 6.5.2.1.1-1
     expect(compressed.evm.transmitterSteps[0]).toMatch(/^amplifier/);
     c.dispose();
   });
