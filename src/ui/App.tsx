@@ -1,3 +1,4 @@
+import { MetricsPanel } from './metrics/MetricsPanel';
 import { ComparisonTable } from './panels/ComparisonTable';
 import { ConfigPanel } from './panels/ConfigPanel';
 import { ResultSummary } from './panels/ResultSummary';
@@ -5,9 +6,12 @@ import { SafetyNotice } from './panels/SafetyNotice';
 import { ScenariosPanel } from './panels/ScenariosPanel';
 import { ThemeChoice } from './panels/ThemeChoice';
 import { WorkspaceBar } from './panels/WorkspaceBar';
+import { AmplifierPlot } from './plots/AmplifierPlot';
 import { ConstellationPlot } from './plots/ConstellationPlot';
 import { PlotPanel } from './plots/PlotPanel';
+import { ReceiverPlot } from './plots/ReceiverPlot';
 import { ResourceGridPlot } from './plots/ResourceGridPlot';
+import { SpectrumPlot } from './plots/SpectrumPlot';
 import { TimeSamplesPlot } from './plots/TimeSamplesPlot';
 import { useAppStore } from './state/AppStoreContext';
 
@@ -53,9 +57,19 @@ export function App() {
           <PlotPanel title="Resource grid" panelId="grid">
             <ResourceGridPlot />
           </PlotPanel>
+          <PlotPanel title="Spectrum and adjacent channels" panelId="spectrum" size="wide">
+            <SpectrumPlot />
+          </PlotPanel>
+          <PlotPanel title="Amplifier transfer" panelId="amplifier">
+            <AmplifierPlot />
+          </PlotPanel>
+          <PlotPanel title="Receiver EVM" panelId="receiver">
+            <ReceiverPlot />
+          </PlotPanel>
           <ComparisonTable />
         </div>
         <aside className="side-column" aria-label="Measurements and scenarios">
+          <MetricsPanel />
           <ResultSummary />
           <ScenariosPanel />
         </aside>

@@ -7,6 +7,15 @@ import type { AclrResult } from '../dsp/metrics/aclr';
 import type { OccupiedBandwidth } from '../dsp/metrics/occupiedBandwidth';
 import type { EvmReport } from '../dsp/receiver/evmMeasurement';
 
+/** One ACLR measurement channel as drawn on the spectrum: centre, equivalent width ∫|H|² (B for a square filter, 1/T for RRC). */
+export interface MeasurementBand {
+  key: string;
+  label: string;
+  centreHz: number;
+  widthHz: number;
+  filter: string;
+}
+
 /** A Welch spectrum with its ACLR and occupied bandwidth (src/dsp/metrics). */
 export interface SpectrumPayload<TBuffer = ArrayBuffer> {
   /** Bin centres from −f_s/2 upward, Hz. */
@@ -23,6 +32,8 @@ export interface SpectrumPayload<TBuffer = ArrayBuffer> {
   symbols: number;
   aclr: AclrResult;
   occupiedBandwidth: OccupiedBandwidth;
+  /** The measurement channels of the ACLR plan: assigned (key "assigned") and adjacent, centre and noise bandwidth. */
+  bands: MeasurementBand[];
   /** What was measured: "generated waveform" or the transmitter steps applied. */
   source: string;
   warnings: string[];

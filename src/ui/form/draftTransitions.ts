@@ -22,6 +22,14 @@ function withDataSource(draft: ConfigDraft, source: unknown): ConfigDraft {
  */
 export function applyFieldChange(draft: ConfigDraft, path: string, value: unknown): ConfigDraft {
   if (path === 'data.source') return withDataSource(draft, value);
+  if (path === 'amplifier.model') {
+    // Each model has its own parameters (the schema's union is strict): keep only the drive.
+    const previous = (draft.amplifier ?? {}) as { backoffReference?: unknown; backoffDb?: unknown };
+    const next: Record<string, unknown> = { model: value };
+    if (previous.backoffReference !== undefined) next.backoffReference = previous.backoffReference;
+    if (previous.backoffDb !== undefined) next.backoffDb = previous.backoffDb;
+    return { ...draft, amplifier: next };
+  }
   let next = writeAtPath(draft, path, value);
   if (path === 'standard' && value !== draft.standard) {
     next = writeAtPath(next, 'subcarrierSpacingKHz', undefined);

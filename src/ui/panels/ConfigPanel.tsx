@@ -17,6 +17,11 @@ function sectionHasIssue(section: ConfigSection, draft: ConfigDraft, fieldErrors
   return section.fields.some((field) => (field.visible?.(draft) ?? true) && messageFor(fieldErrors, field) !== undefined);
 }
 
+/** An optional section opens by itself when the draft uses it. */
+function sectionActive(section: ConfigSection, draft: ConfigDraft): boolean {
+  return section.fields.some((field) => field.kind === 'toggle' && draft[field.path] !== undefined);
+}
+
 /** The configuration form, in sections; every change is checked by the schema before it reaches the engine. */
 export function ConfigPanel() {
   const draft = useAppStore((state) => state.draft);
@@ -29,7 +34,7 @@ export function ConfigPanel() {
       <h2 id="config-heading">Configuration</h2>
       <form onSubmit={(event) => event.preventDefault()} noValidate>
         {configSections.map((section) => (
-          <details key={section.id} className="config-section" open data-section={section.id}>
+          <details key={section.id} className="config-section" open={section.startClosed !== true || sectionActive(section, draft)} data-section={section.id}>
             <summary>
               {section.title}
               {sectionHasIssue(section, draft, fieldErrors) && (

@@ -1,7 +1,7 @@
 import { useId } from 'react';
 import { readAtPath } from '../form/draftPath';
 import type { ConfigDraft } from '../state/configValidation';
-import { parseNumberInput, type ConfigField } from './configFields';
+import { parseListInput, parseNumberInput, type ConfigField } from './configFields';
 
 export interface FieldControlProps {
   field: ConfigField;
@@ -47,6 +47,41 @@ export function FieldControl({ field, draft, error, onChange }: FieldControlProp
           </option>
         ))}
       </select>
+    );
+  } else if (field.kind === 'toggle') {
+    const checked = raw !== undefined && (raw as { enabled?: unknown } | null)?.enabled !== false;
+    return (
+      <div className={`field field-toggle${error !== undefined ? ' field-invalid' : ''}`} data-field={field.path}>
+        <label className="checkbox" htmlFor={id}>
+          <input
+            {...common}
+            type="checkbox"
+            checked={checked}
+            onChange={(event) => onChange(field.path, event.target.checked ? field.onValue(draft) : undefined)}
+          />
+          {field.label}
+        </label>
+        {hint !== undefined && (
+          <p id={hintId} className="field-hint">
+            {hint}
+          </p>
+        )}
+        {error !== undefined && (
+          <p id={errorId} className="field-error" role="alert">
+            {error}
+          </p>
+        )}
+      </div>
+    );
+  } else if (field.kind === 'list') {
+    control = (
+      <input
+        {...common}
+        type="text"
+        value={Array.isArray(raw) ? raw.join(', ') : raw === undefined ? '' : String(raw)}
+        {...(field.placeholder !== undefined ? { placeholder: field.placeholder } : {})}
+        onChange={(event) => onChange(field.path, parseListInput(event.target.value))}
+      />
     );
   } else if (field.kind === 'text') {
     control = (

@@ -8,11 +8,12 @@ import { LTE_BANDWIDTHS } from '../../dsp/numerology/lteNumerology';
 import { NR_FR1_NUM_RB } from '../../dsp/numerology/nrNumerology';
 import { NR_DEFAULT_SCS_KHZ } from '../form/gridSize';
 import type { ConfigDraft } from '../state/configValidation';
+import { transmitterSectionPaths, transmitterSections } from './transmitterFields';
 
 export { NR_DEFAULT_SCS_KHZ };
 
 export interface FieldOption {
-  value: string | number;
+  value: string | number | boolean;
   label: string;
 }
 
@@ -31,7 +32,7 @@ export interface SelectField extends FieldBase {
   kind: 'select';
   options: (draft: ConfigDraft) => FieldOption[];
   /** Shown when the draft leaves the field out (the schema's default). */
-  defaultValue: (draft: ConfigDraft) => string | number;
+  defaultValue: (draft: ConfigDraft) => string | number | boolean;
 }
 
 export interface NumberField extends FieldBase {
@@ -53,11 +54,25 @@ export interface TextField extends FieldBase {
   placeholder?: string;
 }
 
-export type ConfigField = SelectField | NumberField | TextField;
+/** Switches an optional sub-object on (writes `onValue`) or off (removes it). */
+export interface ToggleField extends FieldBase {
+  kind: 'toggle';
+  onValue: (draft: ConfigDraft) => unknown;
+}
+
+/** A list of whole numbers typed as "2, 7, 11". */
+export interface ListField extends FieldBase {
+  kind: 'list';
+  placeholder?: string;
+}
+
+export type ConfigField = SelectField | NumberField | TextField | ToggleField | ListField;
 
 export interface ConfigSection {
   id: string;
   title: string;
+  /** Sections for optional blocks start closed. */
+  startClosed?: boolean;
   fields: readonly ConfigField[];
   /** A custom editor rendered after the fields (e.g. the RB picker). */
   editor?: 'allocation';
@@ -274,13 +289,15 @@ const payloadSection: ConfigSection = {
   ],
 };
 
-/** The form, top to bottom. Sections for reference signals, impairments and the amplifier join as the schema gains them. */
-export const configSections: readonly ConfigSection[] = [carrierSection, waveformSection, allocationSection, payloadSection];
+/** The form, top to bottom. */
+export const configSections: readonly ConfigSection[] = [carrierSection, waveformSection, allocationSection, payloadSection, ...transmitterSections];
 
 export const configFields: readonly ConfigField[] = configSections.flatMap((section) => section.fields);
 
 /** Paths the form shows issues at; anything else is listed under the form. */
-export const configFieldKeys: readonly string[] = [...new Set([...configFields.map((field) => field.path), 'allocation', 'data', 'custom'])];
+export const configFieldKeys: readonly string[] = [
+  ...new Set([...configFields.map((field) => field.path), 'allocation', 'data', 'custom', ...transmitterSectionPaths]),
+];
 
 /** Reads a number input: an empty or unparsable entry stays a string so the schema names the problem. */
 export function parseNumberInput(text: string): number | string {
@@ -288,4 +305,14 @@ export function parseNumberInput(text: string): number | string {
   if (trimmed === '') return '';
   const value = Number(trimmed);
   return Number.isFinite(value) ? value : trimmed;
+}
+
+/** Reads "2, 7, 11" as [2, 7, 11]; an entry that is not a number stays text so the schema names it; empty removes the field. */
+export function parseListInput(text: string): unknown[] | undefined {
+  const parts = text
+    .split(/[\s,;]+/)
+    .map((p) => p.trim())
+    .filter((p) => p !== '');
+  if (parts.length === 0) return undefined;
+  return parts.map((p) => (Number.isFinite(Number(p)) ? Number(p) : p));
 }

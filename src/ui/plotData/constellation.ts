@@ -33,6 +33,23 @@ export function prepareConstellation(
   return { symbolIndex, inPhase, quadrature, maxAbsComponent };
 }
 
+/** Received (equalised) points of symbol `symbolIndex` from the receiver's fill-order constellation, aligned with the ideal ones. */
+export function prepareReceivedConstellation(
+  receivedIq: Float64Array,
+  waveform: Pick<EngineWaveform, 'gridKinds' | 'numGridSubcarriers' | 'numSymbols'>,
+  symbolIndex: number,
+): { inPhase: Float64Array; quadrature: Float64Array } | null {
+  const { first, count } = locateDataSymbols(waveform, symbolIndex);
+  if (2 * (first + count) > receivedIq.length) return null;
+  const inPhase = new Float64Array(count);
+  const quadrature = new Float64Array(count);
+  for (let i = 0; i < count; i++) {
+    inPhase[i] = receivedIq[2 * (first + i)] ?? Number.NaN;
+    quadrature[i] = receivedIq[2 * (first + i) + 1] ?? Number.NaN;
+  }
+  return { inPhase, quadrature };
+}
+
 /** Counts distinct points (rounded to `decimals`), e.g. 4 for QPSK over enough symbols. */
 export function countDistinctPoints(series: Pick<ConstellationSeries, 'inPhase' | 'quadrature'>, decimals = 6): number {
   const seen = new Set<string>();
@@ -46,21 +63,36 @@ export function buildConstellationFigure(
   series: ConstellationSeries,
   theme: PlotTheme,
   modulationLabel: string,
+  received: { inPhase: Float64Array; quadrature: Float64Array; evmPercent: number } | null = null,
 ): { data: Data[]; layout: Partial<Layout> } {
   const base = baseLayout(theme);
-  const limit = Math.max(series.maxAbsComponent, 1e-12) * 1.2;
+  let maxAbs = series.maxAbsComponent;
+  if (received !== null) for (let i = 0; i < received.inPhase.length; i++) maxAbs = Math.max(maxAbs, Math.abs(received.inPhase[i] ?? 0), Math.abs(received.quadrature[i] ?? 0));
+  const limit = Math.max(Math.min(maxAbs, 2 * series.maxAbsComponent), 1e-12) * 1.15;
+  const data: Data[] = [
+    {
+      type: 'scatter',
+      mode: 'markers',
+      name: 'ideal',
+      x: series.inPhase,
+      y: series.quadrature,
+      marker: { color: theme.marker, size: 7, opacity: 0.9, symbol: 'cross-thin', line: { width: 2, color: theme.marker } },
+      hovertemplate: 'ideal I %{x:.4f}<br>Q %{y:.4f}<extra></extra>',
+    },
+  ];
+  if (received !== null) {
+    data.push({
+      type: 'scatter',
+      mode: 'markers',
+      name: `received (EVM ${received.evmPercent.toFixed(received.evmPercent < 1 ? 3 : 2)} %)`,
+      x: received.inPhase,
+      y: received.quadrature,
+      marker: { color: theme.series[1] ?? theme.quadrature, size: 3.5, opacity: 0.55 },
+      hovertemplate: 'received I %{x:.4f}<br>Q %{y:.4f}<extra></extra>',
+    });
+  }
   return {
-    data: [
-      {
-        type: 'scatter',
-        mode: 'markers',
-        name: 'data symbols',
-        x: series.inPhase,
-        y: series.quadrature,
-        marker: { color: theme.marker, size: 5, opacity: 0.75 },
-        hovertemplate: 'I %{x:.4f}<br>Q %{y:.4f}<extra></extra>',
-      },
-    ],
+    data,
     layout: {
       ...base,
       title: {
@@ -69,7 +101,7 @@ export function buildConstellationFigure(
         x: 0,
         xanchor: 'left',
       },
-      showlegend: false,
+      showlegend: received !== null,
       xaxis: { ...base.xaxis, title: { text: 'I' }, range: [-limit, limit], zeroline: true },
       yaxis: { ...base.yaxis, title: { text: 'Q' }, range: [-limit, limit], zeroline: true, scaleanchor: 'x', scaleratio: 1 },
     },

@@ -27,6 +27,8 @@ export interface PlotTheme {
   series: readonly string[];
   /** Fill of a confidence band, shaded measurement band, limit line. */
   band: string;
+  /** A second band fill (UTRA channels beside the same-standard ones). */
+  bandAlt: string;
   limit: string;
 }
 
@@ -49,6 +51,7 @@ export const plotThemes: Record<ColorScheme, PlotTheme> = {
     gridReference: '#e0a21b',
     series: ['#1f5fbf', '#c2571a', '#2c7a3f', '#8a3ab9', '#b4162c', '#0f8a8f'],
     band: 'rgba(31, 95, 191, 0.14)',
+    bandAlt: 'rgba(194, 87, 26, 0.12)',
     limit: '#b4162c',
   },
   dark: {
@@ -69,6 +72,7 @@ export const plotThemes: Record<ColorScheme, PlotTheme> = {
     gridReference: '#f2c14e',
     series: ['#6ea8ff', '#ffa25c', '#67d37f', '#c8a6ff', '#ff6b7d', '#4fd1d6'],
     band: 'rgba(110, 168, 255, 0.18)',
+    bandAlt: 'rgba(255, 162, 92, 0.14)',
     limit: '#ff6b7d',
   },
 };

@@ -1,7 +1,8 @@
 /**
- * Connects the store to the engine client: each new schema-valid draft is sent to the worker and
- * the answer lands in the results slice. Superseded answers are ignored (the newest request wins);
- * configuration errors from the engine are marked at their fields.
+ * Connects the store to the engine client: each new schema-valid draft is sent to the worker pool as
+ * separate requests — the waveform (time, constellation, grid), the spectrum and the EVM — each in its
+ * own lane, so the newest draft wins per kind and fast answers are drawn first. Answers for a draft
+ * that has since been replaced are ignored; configuration errors from the engine are marked at their fields.
  */
 import { DspError } from '../../dsp/errors';
 import { isSuperseded, type EngineClient } from '../../worker/client';
@@ -13,7 +14,11 @@ export interface EngineControllerOptions {
   onSubmit?: (seq: number) => void;
 }
 
+const describe = (error: unknown) => (error instanceof Error ? error.message : String(error));
+
 export function connectEngine(store: AppStore, client: EngineClient, options: EngineControllerOptions = {}): () => void {
+  const current = (draft: ConfigDraft) => store.getState().submittedDraft === draft;
+
   const run = (draft: ConfigDraft): void => {
     const state = store.getState();
     const seq = state.submittedSeq;
@@ -21,19 +26,36 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
     state.requestStarted();
     client.generate(draft).then(
       (result) => {
-        if (store.getState().submittedDraft !== draft) return; // a newer draft is on its way
-        store.getState().requestSucceeded(result, seq);
+        if (current(draft)) store.getState().requestSucceeded(result, seq);
       },
       (error: unknown) => {
-        if (isSuperseded(error)) return;
-        const current = store.getState();
+        if (isSuperseded(error) || !current(draft)) return;
+        const now = store.getState();
         if (error instanceof DspError) {
           const issues = error.details?.issues;
-          if (Array.isArray(issues)) current.setEngineIssues(issues as { path: string; message: string }[]);
-          current.requestFailed({ code: error.code, message: error.message });
+          if (Array.isArray(issues)) now.setEngineIssues(issues as { path: string; message: string }[]);
+          now.requestFailed({ code: error.code, message: error.message });
         } else {
-          current.requestFailed({ code: 'INTERNAL', message: error instanceof Error ? error.message : String(error) });
+          now.requestFailed({ code: 'INTERNAL', message: describe(error) });
         }
+      },
+    );
+    state.measurementStarted('spectrum');
+    client.spectrum(draft).then(
+      (result) => {
+        if (current(draft)) store.getState().measurementSucceeded('spectrum', result, seq);
+      },
+      (error: unknown) => {
+        if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('spectrum', describe(error));
+      },
+    );
+    state.measurementStarted('evm');
+    client.evm(draft).then(
+      (result) => {
+        if (current(draft)) store.getState().measurementSucceeded('evm', result, seq);
+      },
+      (error: unknown) => {
+        if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('evm', describe(error));
       },
     );
   };

@@ -4,11 +4,12 @@
  */
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { createConfigSlice, type ConfigSlice } from './configSlice';
+import { createMeasurementsSlice, type MeasurementsSlice } from './measurementsSlice';
 import { createResultsSlice, type ResultsSlice } from './resultsSlice';
 import { createScenariosSlice, type ScenariosSlice } from './scenariosSlice';
 import { createViewSlice, type ViewSlice } from './viewSlice';
 
-export type AppState = ConfigSlice & ResultsSlice & ViewSlice & ScenariosSlice;
+export type AppState = ConfigSlice & ResultsSlice & ViewSlice & ScenariosSlice & MeasurementsSlice;
 export type AppStore = StoreApi<AppState>;
 
 export function createAppStore(): AppStore {
@@ -17,5 +18,6 @@ export function createAppStore(): AppStore {
     ...createResultsSlice(...args),
     ...createViewSlice(...args),
     ...createScenariosSlice(...args),
+    ...createMeasurementsSlice(...args),
   }));
 }

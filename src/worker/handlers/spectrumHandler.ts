@@ -7,14 +7,16 @@ import { parseWaveformConfig } from '../../config/configParse';
 import type { WaveformConfig } from '../../config/schema';
 import { computeAmplifierCurves } from '../../dsp/amplifier/amplifierCurves';
 import { createAmplifierFromConfig } from '../../dsp/amplifier/createAmplifier';
-import { aclrPlanFor, computeAclr, type AclrResult } from '../../dsp/metrics/aclr';
+import { aclrPlanFor, computeAclr, type AclrPlan, type AclrResult } from '../../dsp/metrics/aclr';
+import { describeFilter, filterNoiseBandwidthHz } from '../../dsp/metrics/channelFilter';
 import { computeOccupiedBandwidth, type OccupiedBandwidth } from '../../dsp/metrics/occupiedBandwidth';
 import { measureSpectrum } from '../../dsp/metrics/spectrumMeasurement';
 import { computeWelchPsd, type PowerSpectrum } from '../../dsp/metrics/welchPsd';
 import { applyTransmitterChain } from '../../dsp/transmitter/transmitterChain';
 import { generateWaveform } from '../../dsp/waveform/waveformGenerator';
+import { createWaveformPlan } from '../../dsp/waveform/waveformPlan';
 import type { EngineDispatchHost, HandlerOutput } from '../engineDispatch';
-import type { AmplifierPayload, SpectrumPayload } from '../measurementTypes';
+import type { AmplifierPayload, MeasurementBand, SpectrumPayload } from '../measurementTypes';
 import { PROTOCOL_VERSION, type SpectrumRequest, type SpectrumResponse } from '../protocol';
 
 /** Symbols the interactive spectrum analyses at least and at most (a subframe up to ten). */
@@ -26,11 +28,19 @@ export function hasTransmitterChain(config: WaveformConfig): boolean {
   return config.paprReduction !== undefined || config.windowing !== undefined || config.impairments !== undefined || config.amplifier !== undefined;
 }
 
+/** The channels of the engine's ACLR plan, for shading on the plot. */
+export function measurementBands(plan: AclrPlan): MeasurementBand[] {
+  return [
+    { key: 'assigned', label: 'assigned channel', centreHz: 0, widthHz: filterNoiseBandwidthHz(plan.assignedFilter), filter: describeFilter(plan.assignedFilter) },
+    ...plan.channels.map((c) => ({ key: c.key, label: c.label, centreHz: c.offsetHz, widthHz: filterNoiseBandwidthHz(c.filter), filter: describeFilter(c.filter) })),
+  ];
+}
+
 function packSpectrum(
   psd: PowerSpectrum,
   aclr: AclrResult,
   occupiedBandwidth: OccupiedBandwidth,
-  facts: { oversampling: number; symbols: number; source: string; warnings: string[] },
+  facts: { oversampling: number; symbols: number; source: string; warnings: string[]; bands: MeasurementBand[] },
 ): SpectrumPayload {
   return {
     frequenciesHz: Float64Array.from(psd.frequenciesHz).buffer,
@@ -51,7 +61,9 @@ export function runSpectrumRequest(request: SpectrumRequest, startMs: number, ho
   const config = parseWaveformConfig(request.config);
   const symbols = request.symbols ?? Math.min(SPECTRUM_SYMBOLS_MAX, Math.max(SPECTRUM_SYMBOLS_MIN, config.symbols));
   const measured = measureSpectrum(config, { oversampling: config.oversampling, symbols });
+  const bands = measurementBands(aclrPlanFor(createWaveformPlan({ ...config, oversampling: 1 }).numerology));
   const waveform = packSpectrum(measured.psd, measured.aclr, measured.occupiedBandwidth, {
+    bands,
     oversampling: measured.oversampling,
     symbols: measured.symbols,
     source: `generated waveform (${measured.dataSource} data)`,
@@ -69,6 +81,7 @@ export function runSpectrumRequest(request: SpectrumRequest, startMs: number, ho
     transmitted = packSpectrum(psd, computeAclr(psd, aclrPlanFor(wave.plan.numerology)), computeOccupiedBandwidth(psd), {
       oversampling: measured.oversampling,
       symbols: measured.symbols,
+      bands,
       source: chain.report.steps.join(' → '),
       warnings: chain.warnings,
     });

@@ -1,0 +1,66 @@
+import { useId, useMemo } from 'react';
+import { useAppStore } from '../state/AppStoreContext';
+import { buildMetricRows, type MetricRow } from './metricRows';
+
+function MetricLine({ row }: { row: MetricRow }) {
+  const tipId = useId();
+  return (
+    <tr data-metric={row.id} className={row.status === 'fail' ? 'metric-fail' : undefined}>
+      <th scope="row">
+        <button type="button" className="metric-term" aria-describedby={tipId}>
+          {row.label}
+        </button>
+        <span role="tooltip" id={tipId} className="metric-tip">
+          <strong>{row.label}</strong> ({row.unit}): {row.definition}
+          <br />
+          <em>{row.standard}</em>
+        </span>
+      </th>
+      <td className="num" data-value>
+        {row.value}
+      </td>
+      <td className="unit">{row.unit}</td>
+      <td className="metric-limit">
+        {row.limit !== null && <span>{row.limit}</span>}
+        {row.status !== null && <span className={`verdict verdict-${row.status}`}>{row.status === 'pass' ? 'pass' : 'FAIL'}</span>}
+      </td>
+    </tr>
+  );
+}
+
+/** The figures of the configuration being edited, grouped, each with unit, definition and standard. */
+export function MetricsPanel() {
+  const spectrum = useAppStore((state) => state.spectrum);
+  const evm = useAppStore((state) => state.evm);
+  const rows = useMemo(() => buildMetricRows({ spectrum: spectrum.data, evm: evm.data }), [spectrum.data, evm.data]);
+  const groups = [...new Set(rows.map((r) => r.group))];
+  const busy = spectrum.status === 'running' || evm.status === 'running';
+  return (
+    <section className="panel metrics-panel" aria-labelledby="metrics-heading" aria-busy={busy}>
+      <h2 id="metrics-heading">
+        Measurements <span className={`status status-${busy ? 'running' : 'ready'}`}>{busy ? 'updating…' : 'current'}</span>
+      </h2>
+      <table className="metrics-table">
+        {groups.map((group) => (
+          <tbody key={group}>
+            <tr className="metric-group">
+              <th colSpan={4} scope="rowgroup">
+                {group}
+              </th>
+            </tr>
+            {rows
+              .filter((r) => r.group === group)
+              .map((row) => (
+                <MetricLine key={row.id} row={row} />
+              ))}
+          </tbody>
+        ))}
+      </table>
+      {(spectrum.error !== null || evm.error !== null) && (
+        <p className="engine-failure" role="alert">
+          {[spectrum.error, evm.error].filter(Boolean).join(' ')}
+        </p>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,130 @@
+/**
+ * The metrics summary: one row per figure with its unit, how it is defined and which standard it follows, built
+ * from the engine's results (values are formatted, never recomputed). Pure, so it is tested without a browser.
+ */
+import type { EvmResult, SpectrumResult } from '../../worker/client';
+
+export type MetricStatus = 'pass' | 'fail' | null;
+
+export interface MetricRow {
+  id: string;
+  label: string;
+  /** Formatted value, or "–" while unknown. */
+  value: string;
+  unit: string;
+  /** How the value is defined and measured (tooltip). */
+  definition: string;
+  /** The standard or reference it follows. */
+  standard: string;
+  status: MetricStatus;
+  /** The limit it is checked against, formatted with its unit. */
+  limit: string | null;
+  group: 'Envelope' | 'Spectrum' | 'Modulation quality' | 'Amplifier';
+}
+
+export interface MetricInputs {
+  spectrum: SpectrumResult | null;
+  evm: EvmResult | null;
+}
+
+const fixed = (v: number | null | undefined, digits: number) => (v === null || v === undefined || !Number.isFinite(v) ? '–' : v.toFixed(digits));
+
+export const ACLR_DEFINITION =
+  'Adjacent channel leakage ratio: filtered mean power in the assigned channel over the filtered mean power centred on the adjacent channel, from the Welch PSD integrated through each channel filter.';
+
+function standardOfAclr(source: string): string {
+  return source.replace(/ \(from memory — verify\)/, ' (limits from memory — verify)');
+}
+
+/** Rows for the spectrum: ACLR per adjacent channel (worst of lower/upper), 99 % OBW. */
+function spectrumRows(spectrum: SpectrumResult | null): MetricRow[] {
+  const primary = spectrum === null ? null : (spectrum.transmitted ?? spectrum.waveform);
+  const rows: MetricRow[] = [];
+  const values = primary?.aclr.values ?? [];
+  const pairs = new Map<string, (typeof values)[number][]>();
+  for (const v of values) {
+    const name = v.label.replace(/ [−+]$/, '');
+    pairs.set(name, [...(pairs.get(name) ?? []), v]);
+  }
+  for (const [name, both] of pairs) {
+    const worst = both.reduce((a, b) => (b.aclrDb < a.aclrDb ? b : a));
+    rows.push({
+      id: `aclr-${worst.key.replace(/(Lower|Upper)$/, '')}`,
+      label: name,
+      value: fixed(worst.aclrDb, 1),
+      unit: 'dB',
+      definition: `${ACLR_DEFINITION} Worse of the two sides (${both.map((v) => `${v.label.slice(-1)} ${fixed(v.aclrDb, 1)} dB`).join(', ')}); offset ±${fixed(Math.abs(worst.offsetHz) / 1e6, 2)} MHz, filter ${worst.filter}.`,
+      standard: standardOfAclr(worst.source),
+      status: null,
+      limit: null,
+      group: 'Spectrum',
+    });
+  }
+  if (rows.length === 0) {
+    rows.push({ id: 'aclr', label: 'ACLR', value: '–', unit: 'dB', definition: ACLR_DEFINITION, standard: 'TS 36.101 §6.6.2.3 / TS 38.101-1 §6.5.2.4', status: null, limit: null, group: 'Spectrum' });
+  }
+  const obw = primary?.occupiedBandwidth;
+  rows.push({
+    id: 'obw',
+    label: 'Occupied bandwidth',
+    value: obw === undefined ? '–' : fixed(obw.occupiedBandwidthHz / 1e6, 3),
+    unit: 'MHz',
+    definition: 'Width containing 99 % of the total integrated power of the spectrum, 0.5 % left outside on each side (crossings interpolated within the PSD bin).',
+    standard: 'TS 36.101 §6.6.1 / TS 38.101-1 §6.5.1 (from memory — verify)',
+    status: null,
+    limit: null,
+    group: 'Spectrum',
+  });
+  return rows;
+}
+
+function evmRows(evm: EvmResult | null): MetricRow[] {
+  const e = evm?.evm ?? null;
+  const limit = e?.evmLimitPercent;
+  return [
+    {
+      id: 'evm',
+      label: 'EVM (RMS)',
+      value: e === null ? '–' : fixed(e.evmRmsPercent, e.evmRmsPercent < 1 ? 3 : 2),
+      unit: '%',
+      definition: `Error vector magnitude: √(Σ|z′ − i|² / (N·P0)) over the allocated data elements after equalisation; ${e?.method ?? 'reference receiver, known timing, no channel'}.`,
+      standard: e === null || e.limitSource === 'none' ? 'TS 36.101 Annex F / TS 38.101-1 Annex F' : `Annex F method; limit ${e.limitSource}`,
+      status: e?.pass === undefined ? null : e.pass ? 'pass' : 'fail',
+      limit: limit === undefined ? null : `≤ ${limit} %`,
+      group: 'Modulation quality',
+    },
+  ];
+}
+
+function amplifierRows(spectrum: SpectrumResult | null): MetricRow[] {
+  const drive = spectrum?.amplifier?.drive;
+  if (drive === undefined || drive === null) return [];
+  return [
+    {
+      id: 'obo',
+      label: 'Output back-off (configured)',
+      value: fixed(drive.oboDb, 2),
+      unit: 'dB',
+      definition: 'OBO = 10·log10(A_sat² / P_out,avg), measured on the amplified waveform at the configured drive.',
+      standard: 'common practice (PA back-off definitions)',
+      status: null,
+      limit: null,
+      group: 'Amplifier',
+    },
+    {
+      id: 'ibo',
+      label: 'Input back-off',
+      value: fixed(drive.iboDb, 2),
+      unit: 'dB',
+      definition: 'IBO = 10·log10(r_sat² / P_in,avg) at the drive that gives the configured back-off.',
+      standard: 'common practice (PA back-off definitions)',
+      status: null,
+      limit: null,
+      group: 'Amplifier',
+    },
+  ];
+}
+
+export function buildMetricRows(inputs: MetricInputs): MetricRow[] {
+  return [...evmRows(inputs.evm), ...spectrumRows(inputs.spectrum), ...amplifierRows(inputs.spectrum)];
+}

@@ -1,0 +1,27 @@
+import { useMemo } from 'react';
+import { plotThemes } from '../plotData/plotTheme';
+import { buildSpectrumFigure } from '../plotData/spectrum';
+import { useAppStore } from '../state/AppStoreContext';
+import { PlotlyFigure } from './PlotlyFigure';
+
+/** Welch PSD with the ACLR channels shaded and their values; the transmitted spectrum when a chain is configured. */
+export function SpectrumPlot() {
+  const spectrum = useAppStore((state) => state.spectrum);
+  const scheme = useAppStore((state) => state.colorScheme);
+  const overlays = useAppStore((state) => state.spectrumOverlays);
+  const figure = useMemo(() => {
+    const data = spectrum.data;
+    if (data === null) return null;
+    const theme = plotThemes[scheme];
+    return buildSpectrumFigure(
+      {
+        primary: data.transmitted ?? data.waveform,
+        generated: data.transmitted === null ? null : data.waveform,
+        overlays,
+        label: data.transmitted === null ? 'current' : 'current, transmitted',
+      },
+      theme,
+    );
+  }, [spectrum.data, scheme, overlays]);
+  return <PlotlyFigure figure={figure} label="Power spectral density with ACLR channels" testId="spectrum-plot" epoch={spectrum.seq} />;
+}
