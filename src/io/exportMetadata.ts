@@ -44,12 +44,14 @@ export interface MetadataInput {
   readonly quantisation: QuantisationTally | undefined;
   readonly sha512Hex: string;
   readonly dataBytes: number;
+  /** What the transmitter blocks did, when the configuration has any. */
+  readonly transmitter?: { readonly report: { readonly steps: readonly string[] }; readonly warnings: readonly string[] } | undefined;
 }
 
 /** Builds the report and the metadata text (SigMF meta or our sidecar) of a finished export. */
 export function buildExportMetadata(input: MetadataInput): { text: string; report: ExportReport } {
   const { plan, level, writtenSummary: w } = input;
-  const warnings = [...plan.warnings];
+  const warnings = [...plan.warnings, ...(input.transmitter?.warnings ?? [])];
   let quantisation: ExportReport['quantisation'];
   if (input.quantisation) {
     const t = input.quantisation;
@@ -93,6 +95,7 @@ export function buildExportMetadata(input: MetadataInput): { text: string; repor
     num_samples: plan.numSamples,
     scaling: scalingFacts(input, report),
     export: exportFacts(plan),
+    ...(input.transmitter ? { transmitter: { steps: input.transmitter.report.steps } } : {}),
   };
   const description = plan.options.description ?? `Crestline waveform: ${describeConfig(plan.config)}`;
   if (plan.format.container === 'sigmf') {
@@ -125,6 +128,7 @@ export function buildExportMetadata(input: MetadataInput): { text: string; repor
   if (plan.options.author !== undefined) sidecar.author = plan.options.author;
   sidecar.recorder = RECORDER;
   Object.assign(sidecar, crestline.config ? { config: crestline.config } : {}, { scaling: crestline.scaling, export: crestline.export });
+  if (crestline.transmitter) sidecar.transmitter = crestline.transmitter;
   return { text: `${JSON.stringify(sidecar, null, 2)}\n`, report };
 }
 

@@ -3,7 +3,8 @@ import { resolveLevel, levelNeedsStats, type ResolvedLevel } from '../dsp/level/
 import { accumulatePowerStats, createPowerStats, summarisePowerStats, type PowerStats, type PowerSummary } from '../dsp/level/powerStats';
 import { applyFrequencyShift } from '../dsp/resample/frequencyShift';
 import { createCircularResampler, historyLengthSamples } from '../dsp/resample/polyphaseResampler';
-import { createWaveformGenerator } from '../dsp/waveform/waveformGenerator';
+import { applyTransmitterChain, type TransmitterReport } from '../dsp/transmitter/transmitterChain';
+import { createWaveformGenerator, generateWaveform } from '../dsp/waveform/waveformGenerator';
 import { encodeCsvIq } from './csvIq';
 import { buildExportMetadata, type ExportReport } from './exportMetadata';
 import type { ExportPlan } from './exportPlan';
@@ -105,6 +106,7 @@ export function* runExport(plan: ExportPlan, hooks: ExportHooks = {}): Generator
     quantisation: plan.format.integer ? tally : undefined,
     sha512Hex,
     dataBytes,
+    transmitter: plan.transmitterChain ? transmittedRecord(plan) : undefined,
   });
   return { dataSuffix: plan.format.dataSuffix, metaSuffix: plan.format.metaSuffix, metaText: meta.text, sha512Hex, dataBytes, report: meta.report };
 }
@@ -159,8 +161,25 @@ function* analysePass(
   return { stats, tailIq: resampler.tailIq() };
 }
 
+/** The transmitted record of a plan with transmitter blocks, computed once per plan (it is deterministic: seeded). */
+const transmitted = new WeakMap<ExportPlan, { outputIq: Float64Array; report: TransmitterReport; warnings: string[] }>();
+
+function transmittedRecord(plan: ExportPlan): { outputIq: Float64Array; report: TransmitterReport; warnings: string[] } {
+  let hit = transmitted.get(plan);
+  if (!hit) {
+    hit = applyTransmitterChain(generateWaveform(plan.config), plan.config);
+    transmitted.set(plan, hit);
+  }
+  return hit;
+}
+
 /** The record at its native rate, in chunks of whole symbols (fresh arrays the caller may modify). */
 function* nativeStream(plan: ExportPlan): Generator<Float64Array, void, void> {
+  if (plan.transmitterChain) {
+    const record = transmittedRecord(plan).outputIq;
+    for (let at = 0; at < record.length; at += 2 * EXPORT_CHUNK_SAMPLES) yield record.slice(at, Math.min(record.length, at + 2 * EXPORT_CHUNK_SAMPLES));
+    return;
+  }
   const generator = createWaveformGenerator(plan.waveformPlan);
   const symbolSamples = plan.waveformPlan.ofdm.ifftSize + Math.max(...plan.waveformPlan.ofdm.cpLengthsSamples);
   const perChunk = Math.max(1, Math.floor(EXPORT_CHUNK_SAMPLES / symbolSamples));

@@ -5,6 +5,8 @@ import { resampledLengthSamples } from '../dsp/resample/polyphaseResampler';
 import { designResampler, type ResamplerDesign } from '../dsp/resample/resamplerDesign';
 import { planFrequencyShift, type FrequencyShiftPlan } from '../dsp/resample/frequencyShift';
 import { gridSubcarrierFrequencyHz } from '../dsp/waveform/subcarrierLayout';
+import { hasTransmitterChain } from '../dsp/transmitter/transmitterChain';
+import { MAX_IN_MEMORY_SAMPLES } from '../dsp/waveform/waveformGenerator';
 import { createWaveformPlan, type WaveformPlan } from '../dsp/waveform/waveformPlan';
 import { exportFormatInfo, type ExportFormatInfo } from './exportFormats';
 import { defaultLevelFor, parseExportOptions, type ExportOptions, type ExportOptionsInput } from './exportOptions';
@@ -45,6 +47,11 @@ export interface ExportPlan {
   /** Data file size in bytes; undefined for CSV (text of varying width). */
   readonly dataFileBytes: number | undefined;
   readonly warnings: readonly string[];
+  /**
+   * True when the configuration has transmitter blocks (PAPR reduction, windowing, impairments, amplifier): they act on
+   * the whole record (the amplifier's drive is found on the signal itself), so the record is generated in memory once.
+   */
+  readonly transmitterChain: boolean;
 }
 
 /**
@@ -58,6 +65,14 @@ export function planExport(config: WaveformConfig, optionsInput: ExportOptionsIn
   validateLevelSpec(level);
   const waveformPlan = createWaveformPlan(config);
   const warnings: string[] = [...waveformPlan.warnings];
+  const transmitterChain = hasTransmitterChain(config);
+  if (transmitterChain && waveformPlan.numSamples > MAX_IN_MEMORY_SAMPLES) {
+    throw new DspError(
+      'INVALID_CONFIG',
+      `symbols: with transmitter blocks (paprReduction, windowing, impairments or amplifier) the record is processed in memory, at most ${MAX_IN_MEMORY_SAMPLES} samples; ${config.symbols} symbols give ${waveformPlan.numSamples}. Use fewer symbols and --repeat, or remove those blocks.`,
+      { field: 'symbols' },
+    );
+  }
   const nativeRateHz = waveformPlan.sampleRateHz;
   const numerology = waveformPlan.numerology;
   const scsHz = numerology.subcarrierSpacingHz;
@@ -177,6 +192,7 @@ export function planExport(config: WaveformConfig, optionsInput: ExportOptionsIn
     headerBytes,
     dataFileBytes,
     warnings,
+    transmitterChain,
   };
 }
 

@@ -40,11 +40,12 @@ export function registerAnalyze(program: Command, io: CliIo): void {
       const config = readConfigFile(opts.config);
       const wave = generateWaveform(config);
       const plan = wave.plan;
-      const rec = readRecording(opts.iq);
-      if (rec.sampleRateHz !== undefined && Math.abs(rec.sampleRateHz - plan.sampleRateHz) > 1e-6 * plan.sampleRateHz) {
+      const rec = readRecording(opts.iq, plan.sampleRateHz);
+      const recordRateHz = rec.source.sampleRateHz;
+      if (recordRateHz !== undefined && Math.abs(recordRateHz - plan.sampleRateHz) > 1e-6 * plan.sampleRateHz) {
         throw new DspError(
           'INVALID_CONFIG',
-          `The recording's sample rate ${rec.sampleRateHz} Hz differs from the configuration's ${plan.sampleRateHz} Hz (check bandwidthMHz, subcarrierSpacingKHz and oversampling).`,
+          `The recording's sample rate ${recordRateHz} Hz differs from the configuration's ${plan.sampleRateHz} Hz (check bandwidthMHz, subcarrierSpacingKHz and oversampling).`,
         );
       }
       const rsOn = plan.referenceSignals.kind !== 'none';
@@ -80,9 +81,10 @@ export function registerAnalyze(program: Command, io: CliIo): void {
               reported: report.reportedPosition,
             },
             perSymbolEvmPercent: report.perSymbolPercent.map(num),
+            perSubcarrierEvmPercent: report.perSubcarrierPercent.map(num),
             channelEstimation: report.channelEstimationNote,
             referenceSignals: plan.referenceSignals.description,
-            datatype: rec.datatype,
+            datatype: rec.source.datatype,
             sampleRateHz: plan.sampleRateHz,
             numSamples: rec.iq.length / 2,
             warnings,
@@ -92,7 +94,7 @@ export function registerAnalyze(program: Command, io: CliIo): void {
       }
       const fmt = (x: number | undefined, digits = 4): string => (x === undefined || !Number.isFinite(x) ? 'n/a' : x.toPrecision(digits));
       const verdict = report.pass === undefined ? 'no limit applies' : report.pass ? 'PASS' : 'FAIL';
-      io.stdout(`${rec.dataPath} (${rec.datatype}, ${rec.iq.length / 2} samples): ${describeConfig(config)}`);
+      io.stdout(`${rec.source.dataName} (${rec.source.datatype}, ${rec.iq.length / 2} samples): ${describeConfig(config)}`);
       io.stdout(`EVM ${fmt(report.evmRmsPercent)} % RMS, ${fmt(report.evmPeakPercent)} % peak; limit ${fmt(report.evmLimitPercent, 3)} % → ${verdict}`);
       for (const m of report.perModulation) io.stdout(`  ${m.modulation}: ${fmt(m.evmRmsPercent)} % (limit ${fmt(m.limitPercent, 3)} %)`);
       io.stdout(

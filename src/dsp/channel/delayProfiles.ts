@@ -7,6 +7,7 @@
  */
 export type DelayProfileName = 'epa' | 'eva' | 'etu';
 
+/** One profile of Annex B.2.1. */
 export interface DelayProfile {
   readonly name: DelayProfileName;
   readonly delaysNs: readonly number[];
@@ -15,6 +16,7 @@ export interface DelayProfile {
   readonly defaultDopplerHz: number;
 }
 
+/** The three profiles, by name. */
 export const DELAY_PROFILES: Readonly<Record<DelayProfileName, DelayProfile>> = {
   epa: {
     name: 'epa',

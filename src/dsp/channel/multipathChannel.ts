@@ -20,6 +20,7 @@ export interface MultipathChannelConfig {
   readonly numSinusoids?: number;
 }
 
+/** One tap: its exact delay, its share of the power, its delay interpolator and its fading process. */
 export interface ChannelTap {
   readonly delayS: number;
   readonly powerLinear: number;
@@ -27,6 +28,7 @@ export interface ChannelTap {
   readonly fading: SosFading;
 }
 
+/** A channel realisation (plain data: taps and their seeded fading parameters). */
 export interface MultipathChannel {
   readonly profile: DelayProfileName;
   readonly dopplerHz: number;
@@ -34,6 +36,10 @@ export interface MultipathChannel {
   readonly taps: readonly ChannelTap[];
 }
 
+/**
+ * Draws a channel realisation.
+ * @throws DspError INVALID_CONFIG for an unknown profile, a non-positive sample rate or a negative Doppler
+ */
 export function createMultipathChannel(config: MultipathChannelConfig): MultipathChannel {
   const profile = DELAY_PROFILES[config.profile];
   if (!profile) {

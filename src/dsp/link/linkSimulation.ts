@@ -40,6 +40,7 @@ export interface LinkSimulationOptions {
   readonly windowAdvanceSamples?: number;
 }
 
+/** Totals of one Eb/N0 point over all drops. */
 export interface LinkPoint {
   readonly ebN0Db: number;
   readonly esN0Db: number;
@@ -54,6 +55,7 @@ export interface LinkPoint {
   readonly theoryBer: number | undefined;
 }
 
+/** A sweep's points and how it was run. */
 export interface LinkSimulationResult {
   readonly points: readonly LinkPoint[];
   readonly channelKnowledge: ChannelEstimationMode;
@@ -61,6 +63,10 @@ export interface LinkSimulationResult {
   readonly notes: readonly string[];
 }
 
+/**
+ * Runs the sweep described above.
+ * @throws DspError INVALID_CONFIG for a repeat count below 1
+ */
 export function runLinkSimulation(wave: GeneratedWaveform, options: LinkSimulationOptions): LinkSimulationResult {
   const plan = wave.plan;
   if (!Number.isInteger(options.repeats) || options.repeats < 1) {
@@ -142,6 +148,10 @@ export function runLinkSimulation(wave: GeneratedWaveform, options: LinkSimulati
     rsOn ? `channel estimated from the reference signals (${plan.referenceSignals.description})` : 'reference signals off: the receiver is given the simulated channel and noise variance (ideal channel knowledge)',
     `Eb/N0 counts data energy only; Es/N0 per data symbol over the useful symbol part; SNR over the sampled bandwidth ${(plan.sampleRateHz / 1e6).toFixed(2)} MHz`,
   ];
+  const offset = options.timingOffsetSamples ?? 0;
+  if (!rsOn && (offset !== Math.round(offset) || options.cfoHz)) {
+    notes.push('the ideal channel knowledge does not include the CFO or the fractional part of the timing offset: switch reference signals on to estimate them');
+  }
   return {
     channelKnowledge: knowledge,
     dopplerHz,

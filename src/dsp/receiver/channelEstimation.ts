@@ -30,6 +30,7 @@ export interface ChannelEstimationInput {
   readonly timeInterpolation: 'linear' | 'average';
 }
 
+/** Result of `estimateChannel`. */
 export interface ChannelEstimate {
   /** Ĥ(k, l), numSymbols × numSubcarriers, interleaved (0 outside the groups). */
   readonly channelIq: Float64Array;
@@ -40,6 +41,10 @@ export interface ChannelEstimate {
   readonly pilotSymbols: readonly number[];
 }
 
+/**
+ * Runs steps 1–3 above.
+ * @throws DspError INTERNAL when no element is marked as a pilot
+ */
 export function estimateChannel(input: ChannelEstimationInput): ChannelEstimate {
   const { numSymbols, numSubcarriers: k, rxGridIq, pilotGridIq, pilotMask, groups } = input;
   const w = Math.max(1, Math.floor(input.frequencyWindow));

@@ -9,11 +9,13 @@ import { createFftPlan, ifftUnitary, type FftPlan } from '../fft/fftPlan';
  *   leaving noise-plus-interference variance (1 − μ)/μ per symbol.
  * DFT-s-OFDM blocks are then de-spread by the unitary IDFT (inverse of TS 36.211 §5.3.3 / TS 38.211 §6.3.1.4).
  */
+/** Zero forcing or (unbiased) MMSE. */
 export type EqualizerKind = 'zf' | 'mmse';
 
 const idftPlans = new Map<number, FftPlan>();
 
 /**
+ * Equalises (and for DFT-s-OFDM de-spreads) one block of one symbol.
  * @param rxIq Y_k of the block's data elements in order (2M values)
  * @param gainIq G_k (2M values)
  * @param noiseVariance σ² per element (used by MMSE; NaN falls back to ZF)

@@ -13,6 +13,7 @@ export interface ErrorCounts {
   readonly ser: number;
 }
 
+/** Counts bit and symbol errors; symbols are delimited by the plan's data layout and modulations. */
 export function countErrors(plan: WaveformPlan, txBits: Uint8Array, rxBits: Uint8Array): ErrorCounts {
   assertLength(rxBits, txBits.length, 'Received bits');
   let bitErrors = 0;

@@ -8,6 +8,7 @@ import type { Modulation } from '../modulation/constellations';
  *   square M-QAM symbol error (exact): P_s = 1 − (1 − P_√M)², P_√M = 2(1 − 1/√M)·Q(√(3E_s/((M − 1)N0))).
  * erfc by the Chebyshev fit of Numerical Recipes (Press et al., 2nd ed., §6.2, "erfcc"), fractional error < 1.2e-7.
  */
+/** Complementary error function (Chebyshev fit above). */
 export function erfc(x: number): number {
   const z = Math.abs(x);
   const t = 1 / (1 + 0.5 * z);
@@ -21,6 +22,7 @@ export function erfc(x: number): number {
   return x >= 0 ? r : 2 - r;
 }
 
+/** Gaussian tail Q(x) = ½·erfc(x/√2). */
 export function qFunction(x: number): number {
   return 0.5 * erfc(x / Math.SQRT2);
 }

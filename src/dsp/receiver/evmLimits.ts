@@ -9,6 +9,7 @@ import type { Modulation } from '../modulation/constellations';
  * The uplink is held to the UE limits and the downlink to the BS limits. Values per REFERENCE.md §5.4; cells marked there
  * "from memory — verify" stay so. Plain BPSK has no PUSCH/PDSCH limit and custom numerologies none at all.
  */
+/** A limit and where it comes from. */
 export interface EvmLimit {
   readonly limitPercent: number | undefined;
   readonly source: string;
@@ -19,6 +20,7 @@ const LTE_BS: Partial<Record<Modulation, number>> = { qpsk: 17.5, '16qam': 12.5,
 const NR_UE: Partial<Record<Modulation, number>> = { 'pi/2-bpsk': 30, qpsk: 17.5, '16qam': 12.5, '64qam': 8, '256qam': 3.5 };
 const NR_BS: Partial<Record<Modulation, number>> = { qpsk: 17.5, '16qam': 12.5, '64qam': 8, '256qam': 3.5, '1024qam': 2.5 };
 
+/** The RMS EVM limit for a modulation on a link of a standard (undefined where none is defined). */
 export function evmLimitFor(standard: 'lte' | 'nr' | 'custom', link: 'uplink' | 'downlink', modulation: Modulation): EvmLimit {
   if (standard === 'custom') return { limitPercent: undefined, source: 'no limit: custom numerology' };
   const [table, source] =

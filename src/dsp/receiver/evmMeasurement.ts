@@ -11,6 +11,7 @@ import type { Modulation } from '../modulation/constellations';
  * each time with a zero-forcing equaliser whose coefficients are the time-averaged LS estimates (the static-channel
  * equaliser of Annex F), compute EVM at both positions and report the larger. Limits per modulation from evmLimits.ts.
  */
+/** How `measureEvm` synchronises and estimates the channel. */
 export interface EvmMeasurementOptions {
   readonly timing?: 'cp' | 'known';
   readonly knownTimingOffsetSamples?: number;
@@ -21,6 +22,7 @@ export interface EvmMeasurementOptions {
   readonly windowLengthSamples?: number;
 }
 
+/** The EVM figures as a report or the CLI prints them; percentages RMS unless named peak. */
 export interface EvmReport {
   readonly evmRmsPercent: number;
   readonly evmPeakPercent: number;
@@ -48,12 +50,14 @@ export interface EvmReport {
   readonly warnings: readonly string[];
 }
 
+/** The report plus the nominal demodulation it came with. */
 export interface EvmMeasurement {
   readonly report: EvmReport;
   /** Demodulation with the window at the CP centre (for BER). */
   readonly nominal: ReceiverResult;
 }
 
+/** Measures EVM of `rxIq`, a recording of `plan`'s waveform (see above). */
 export function measureEvm(plan: WaveformPlan, rxIq: Float64Array, options: EvmMeasurementOptions = {}): EvmMeasurement {
   const window = evmWindowFor(plan, options.windowLengthSamples);
   const common = {

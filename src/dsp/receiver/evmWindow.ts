@@ -19,6 +19,7 @@ export const LTE_EVM_WINDOW_EXTENDED_CP: Readonly<Record<number, number>> = { 12
  */
 export const NR_EVM_WINDOW_FRACTION = 0.5;
 
+/** W and the two window positions, as FFT-start advances before the CP end. */
 export interface EvmWindow {
   /** W at the record's rate (oversampling included). */
   readonly windowLengthSamples: number;

@@ -17,6 +17,7 @@ export interface OfdmDemodulatorPlan {
   readonly fft: FftPlan;
 }
 
+/** Derives the demodulator from the waveform plan (same IFFT size, bins, CP pattern, ramps and phase terms). */
 export function createOfdmDemodulatorPlan(plan: WaveformPlan): OfdmDemodulatorPlan {
   return {
     ifftSize: plan.ofdm.ifftSize,
@@ -35,6 +36,7 @@ export interface DemodulatorWorkspace {
   readonly freqIq: Float64Array;
 }
 
+/** Allocates the scratch buffers of `demodulateSymbol`. */
 export function createDemodulatorWorkspace(plan: OfdmDemodulatorPlan): DemodulatorWorkspace {
   return { timeIq: new Float64Array(2 * plan.ifftSize), freqIq: new Float64Array(2 * plan.ifftSize) };
 }

@@ -5,6 +5,7 @@ import { fillReferenceSignals } from '../reference/referenceSignalMapper';
 import { RE_REFERENCE } from '../waveform/resourceKinds';
 import { dataSubcarriersOf, symbolLayoutOf, type WaveformPlan } from '../waveform/waveformPlan';
 import { estimateChannel, type ChannelEstimate } from './channelEstimation';
+import { estimateResidualCfoHz } from './cfoRefinement';
 import { estimateCpTimingAndCfo } from './cpSynchronisation';
 import { equaliseBlock, type EqualizerKind } from './equalisation';
 import { createDemodulatorWorkspace, createOfdmDemodulatorPlan, demodulateSymbol } from './ofdmDemodulator';
@@ -23,6 +24,7 @@ import { createDemodulatorWorkspace, createOfdmDemodulatorPlan, demodulateSymbol
  */
 export type ChannelEstimationMode = 'reference' | 'known-grid' | 'ideal';
 
+/** Receiver settings; every one has a default. */
 export interface ReceiverOptions {
   /** 'known' (default): the waveform starts `knownTimingOffsetSamples` into the record; 'cp': estimate it. */
   readonly timing?: 'known' | 'cp';
@@ -36,6 +38,11 @@ export interface ReceiverOptions {
   readonly estimateCfo?: boolean;
   /** A known CFO to remove, Hz (used when the CFO is not estimated). */
   readonly knownCfoHz?: number;
+  /**
+   * Refine the CP-based CFO from the phase drift between pilot symbols (cfoRefinement.ts); default on whenever the CFO is
+   * estimated and the channel is estimated from pilots.
+   */
+  readonly refineCfo?: boolean;
   /** FFT window start before the end of each CP, integer 0…shortest CP (default 0). */
   readonly windowAdvanceSamples?: number;
   readonly channelEstimation?: ChannelEstimationMode;
@@ -54,6 +61,7 @@ export interface ReceiverOptions {
   readonly snrDbForTiming?: number;
 }
 
+/** Everything the receiver found, in the generator's layouts. */
 export interface ReceiverResult {
   readonly timingOffsetSamples: number;
   readonly cfoHz: number;
@@ -81,6 +89,11 @@ export interface ReceiverResult {
   readonly warnings: string[];
 }
 
+/**
+ * Demodulates `rxIq`, a recording of `plan`'s waveform (it may start later in the record, carry a CFO, a channel and noise).
+ * @throws DspError INVALID_CONFIG for 'reference' without reference signals or a window advance outside the CP,
+ *   LENGTH_MISMATCH for a known grid of the wrong size, INVALID_FILE when the record cannot hold one symbol (CP timing)
+ */
 export function receiveWaveform(plan: WaveformPlan, rxIq: Float64Array, options: ReceiverOptions = {}): ReceiverResult {
   const warnings: string[] = [];
   const numSymbols = plan.config.symbols;
@@ -120,32 +133,33 @@ export function receiveWaveform(plan: WaveformPlan, rxIq: Float64Array, options:
     timing = sync.timingOffsetSamples;
     if (options.estimateCfo ?? true) cfoSubcarriers = sync.cfoSubcarriers;
   }
-  const cfoHz = useCp && (options.estimateCfo ?? true) ? cfoSubcarriers * plan.numerology.subcarrierSpacingHz : (options.knownCfoHz ?? 0);
-  let signalIq = rxIq;
-  if (cfoHz !== 0) {
-    signalIq = new Float64Array(rxIq.length);
-    const step = (-2 * Math.PI * cfoHz) / plan.sampleRateHz;
-    for (let n = 0; n < numRx; n++) {
-      const angle = step * (n - timing);
-      const c = Math.cos(angle);
-      const s = Math.sin(angle);
-      signalIq[2 * n] = rxIq[2 * n]! * c - rxIq[2 * n + 1]! * s;
-      signalIq[2 * n + 1] = rxIq[2 * n]! * s + rxIq[2 * n + 1]! * c;
-    }
-  }
+  let cfoHz = useCp && (options.estimateCfo ?? true) ? cfoSubcarriers * plan.numerology.subcarrierSpacingHz : (options.knownCfoHz ?? 0);
   const lastEnd = timing + plan.numSamples;
   if (lastEnd > numRx) warnings.push(`The record ends ${lastEnd - numRx} samples before the waveform does; missing samples count as zero.`);
 
-  // 2. CP removal and FFT.
+  // 2. CFO removal, CP removal and FFT; with pilots, a second pass removes the residual CFO they reveal.
   const demod = createOfdmDemodulatorPlan(plan);
   const work = createDemodulatorWorkspace(demod);
   const rxGridIq = new Float64Array(2 * k * numSymbols);
-  for (let l = 0; l < numSymbols; l++) {
-    demodulateSymbol(demod, signalIq, timing + layout[l]!.startSample, l, advance, work, rxGridIq.subarray(2 * k * l, 2 * k * (l + 1)));
+  const demodulateAll = (offsetHz: number): void => {
+    const signalIq = offsetHz === 0 ? rxIq : removeFrequencyOffset(rxIq, offsetHz, plan.sampleRateHz, timing);
+    for (let l = 0; l < numSymbols; l++) {
+      demodulateSymbol(demod, signalIq, timing + layout[l]!.startSample, l, advance, work, rxGridIq.subarray(2 * k * l, 2 * k * (l + 1)));
+    }
+  };
+  demodulateAll(cfoHz);
+  const pilots = mode === 'ideal' ? undefined : buildPilots(plan, mode, options, numSymbols);
+  if (pilots && (options.refineCfo ?? (useCp && (options.estimateCfo ?? true)))) {
+    const times = layout.map((s) => s.startSample / plan.sampleRateHz);
+    const residualHz = estimateResidualCfoHz(rxGridIq, pilots.pilotGridIq, pilots.pilotMask, k, times);
+    if (residualHz !== 0) {
+      cfoHz += residualHz;
+      demodulateAll(cfoHz);
+    }
   }
 
   // 3. Channel.
-  const { channelIq, noiseVariance: estimatedNoise, note } = obtainChannel(plan, mode, rxGridIq, options, numSymbols);
+  const { channelIq, noiseVariance: estimatedNoise, note } = obtainChannel(plan, mode, rxGridIq, options, numSymbols, pilots);
   const noiseVariancePerRe = options.noiseVariance ?? estimatedNoise;
   const equalizer: EqualizerKind = options.equalizer ?? 'zf';
   if (equalizer === 'mmse' && !Number.isFinite(noiseVariancePerRe)) warnings.push('MMSE needs a noise variance; none was given or estimated, so ZF was used.');
@@ -210,27 +224,14 @@ export function receiveWaveform(plan: WaveformPlan, rxIq: Float64Array, options:
   };
 }
 
-function obtainChannel(
-  plan: WaveformPlan,
-  mode: ChannelEstimationMode,
-  rxGridIq: Float64Array,
-  options: ReceiverOptions,
-  numSymbols: number,
-): { channelIq: Float64Array; noiseVariance: number; note: string } {
+interface Pilots {
+  readonly pilotGridIq: Float64Array;
+  readonly pilotMask: Uint8Array;
+}
+
+/** The known elements: the reference signals ('reference') or every non-empty element of the transmitted grid. */
+function buildPilots(plan: WaveformPlan, mode: ChannelEstimationMode, options: ReceiverOptions, numSymbols: number): Pilots {
   const k = plan.numerology.numGridSubcarriers;
-  if (mode === 'ideal') {
-    const channelIq = new Float64Array(2 * k * numSymbols);
-    for (let l = 0; l < numSymbols; l++) {
-      const row = channelIq.subarray(2 * k * l, 2 * k * (l + 1));
-      if (options.idealChannel) options.idealChannel(l, row);
-      else for (let i = 0; i < row.length; i += 2) row[i] = 1;
-    }
-    return {
-      channelIq,
-      noiseVariance: Number.NaN,
-      note: options.idealChannel ? 'ideal channel knowledge (the simulated channel response)' : 'ideal channel assumed (H = 1, no estimation)',
-    };
-  }
   const pilotGridIq = new Float64Array(2 * k * numSymbols);
   const pilotMask = new Uint8Array(k * numSymbols);
   if (mode === 'reference') {
@@ -246,6 +247,46 @@ function obtainChannel(
     pilotGridIq.set(grid);
     for (let i = 0; i < pilotMask.length; i++) if (grid[2 * i] !== 0 || grid[2 * i + 1] !== 0) pilotMask[i] = 1;
   }
+  return { pilotGridIq, pilotMask };
+}
+
+/** r[n]·e^{−j2πΔf(n − n0)/f_s}: removes a frequency offset with its phase referenced to the waveform start n0. */
+function removeFrequencyOffset(rxIq: Float64Array, offsetHz: number, sampleRateHz: number, startSample: number): Float64Array {
+  const out = new Float64Array(rxIq.length);
+  const step = (-2 * Math.PI * offsetHz) / sampleRateHz;
+  for (let n = 0; n < rxIq.length / 2; n++) {
+    const angle = step * (n - startSample);
+    const c = Math.cos(angle);
+    const s = Math.sin(angle);
+    out[2 * n] = rxIq[2 * n]! * c - rxIq[2 * n + 1]! * s;
+    out[2 * n + 1] = rxIq[2 * n]! * s + rxIq[2 * n + 1]! * c;
+  }
+  return out;
+}
+
+function obtainChannel(
+  plan: WaveformPlan,
+  mode: ChannelEstimationMode,
+  rxGridIq: Float64Array,
+  options: ReceiverOptions,
+  numSymbols: number,
+  pilots: Pilots | undefined,
+): { channelIq: Float64Array; noiseVariance: number; note: string } {
+  const k = plan.numerology.numGridSubcarriers;
+  if (mode === 'ideal' || !pilots) {
+    const channelIq = new Float64Array(2 * k * numSymbols);
+    for (let l = 0; l < numSymbols; l++) {
+      const row = channelIq.subarray(2 * k * l, 2 * k * (l + 1));
+      if (options.idealChannel) options.idealChannel(l, row);
+      else for (let i = 0; i < row.length; i += 2) row[i] = 1;
+    }
+    return {
+      channelIq,
+      noiseVariance: Number.NaN,
+      note: options.idealChannel ? 'ideal channel knowledge (the simulated channel response)' : 'ideal channel assumed (H = 1, no estimation)',
+    };
+  }
+  const { pilotGridIq, pilotMask } = pilots;
   const groups =
     mode === 'reference' && plan.referenceSignals.kind === 'lte-crs'
       ? [{ firstSubcarrier: 0, numSubcarriers: k }]

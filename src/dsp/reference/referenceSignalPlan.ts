@@ -29,6 +29,7 @@ export interface ReferenceBlock {
   readonly sequenceIq: Float64Array;
 }
 
+/** The resolved reference signals of a waveform (plain data, part of the WaveformPlan). */
 export interface ReferenceSignalPlan {
   readonly kind: ReferenceSignalKind;
   /** One line for summaries, e.g. "LTE PUSCH DMRS (TS 36.211 §5.5.2.1), u 0, v 0, n_cs 0, symbol 3 of each slot". */

@@ -6,6 +6,11 @@ import { clipAndFilter, type ClipAndFilterReport } from '../paprReduction/clipAn
 import { applyTimeWindowing } from '../shaping/timeWindowing';
 import type { SymbolLayout, WaveformPlan } from '../waveform/waveformPlan';
 
+/** True when the configuration asks for any transmitter block after generation (PAPR reduction, windowing, impairments, amplifier). */
+export function hasTransmitterChain(config: Pick<WaveformConfig, 'paprReduction' | 'windowing' | 'impairments' | 'amplifier'>): boolean {
+  return Boolean(config.paprReduction || config.windowing || config.impairments || config.amplifier);
+}
+
 /** What the transmitter chain did to a generated waveform. */
 export interface TransmitterReport {
   /** Steps applied, in order. */
