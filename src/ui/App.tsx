@@ -7,6 +7,7 @@ import { ScenariosPanel } from './panels/ScenariosPanel';
 import { ThemeChoice } from './panels/ThemeChoice';
 import { WorkspaceBar } from './panels/WorkspaceBar';
 import { AmplifierPlot } from './plots/AmplifierPlot';
+import { BackoffPlot } from './plots/BackoffPlot';
 import { ConstellationPlot } from './plots/ConstellationPlot';
 import { PlotPanel } from './plots/PlotPanel';
 import { ReceiverPlot } from './plots/ReceiverPlot';
@@ -65,6 +66,9 @@ export function App() {
           </PlotPanel>
           <PlotPanel title="Receiver EVM" panelId="receiver">
             <ReceiverPlot />
+          </PlotPanel>
+          <PlotPanel title="Back-off against limits" panelId="backoff" size="wide">
+            <BackoffPlot />
           </PlotPanel>
           <ComparisonTable />
         </div>

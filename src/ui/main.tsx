@@ -13,6 +13,7 @@ import { createWorkspaceArchive } from './persist/workspaceArchive';
 import { AppStoreProvider } from './state/AppStoreContext';
 import { EngineContext } from './state/EngineContext';
 import { connectEngine } from './state/engineController';
+import { connectScenarioMeasurements } from './state/scenarioController';
 import { createAppStore } from './state/store';
 import { connectPermalink, connectPersistence, startWorkspace } from './state/workspaceController';
 import './styles.css';
@@ -46,6 +47,7 @@ async function start(): Promise<void> {
   const outcome = await startWorkspace(store, archive, window.location.hash, Date.now());
   if (outcome.notice !== null) store.getState().setPageNotice(outcome.notice);
   connectEngine(store, client, { onSubmit: (seq) => updateTimer.begin(seq) });
+  connectScenarioMeasurements(store, client);
   connectPersistence(store, archive);
   connectPermalink(store, (hash) => window.history.replaceState(null, '', hash));
 }

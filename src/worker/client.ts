@@ -11,6 +11,7 @@
  *   DspError that says so, and `onRestart` reports it to the page.
  */
 import type { WaveformConfig } from '../config/schema';
+import type { BackoffAnalysis } from '../dsp/backoff/backoffAnalysis';
 import type { ExportReport } from '../io/exportMetadata';
 import type { AmplifierPayload, EvmPayload, SpectrumPayload } from './measurementTypes';
 import { waveformBufferKeys, waveformBufferViews, type EngineWaveform, type GeneratedResponse } from './protocol';
@@ -72,6 +73,12 @@ export interface SpectrumResult {
   elapsedMs: number;
 }
 
+export interface BackoffResult {
+  config: WaveformConfig;
+  analysis: BackoffAnalysis;
+  elapsedMs: number;
+}
+
 export interface EvmResult {
   config: WaveformConfig;
   evm: EvmData;
@@ -106,6 +113,8 @@ export interface EngineClient {
   spectrum(config: unknown, routing?: RequestRouting): Promise<SpectrumResult>;
   /** EVM of the transmitted waveform. Default lane "evm". */
   evm(config: unknown, routing?: RequestRouting): Promise<EvmResult>;
+  /** Back-off sweep and solver with the configuration's amplifier. Default lane "backoff", background priority. */
+  backoff(config: unknown, routing?: RequestRouting, psatDbm?: number): Promise<BackoffResult>;
   /** The pool behind the client, for long runs that spread blocks over the workers (ccdfRun.ts). */
   readonly pool: WorkerPool;
   /** Terminates the workers; pending requests settle with SupersededError. */
@@ -186,5 +195,14 @@ export function createEngineClient(options: EngineClientOptions = {}): EngineCli
     };
   };
 
-  return { generate, exportFile, spectrum, evm, pool, dispose: () => pool.dispose() };
+  const backoff = async (config: unknown, routing?: RequestRouting, psatDbm?: number): Promise<BackoffResult> => {
+    const { result } = pool.run(
+      { type: 'backoff', config, ...(psatDbm !== undefined ? { psatDbm } : {}) },
+      { lane: routing?.lane ?? 'backoff', priority: routing?.priority ?? 'background' },
+    );
+    const r = expectResponse(await result, 'backoff-result');
+    return { config: r.config, analysis: r.analysis, elapsedMs: r.elapsedMs };
+  };
+
+  return { generate, exportFile, spectrum, evm, backoff, pool, dispose: () => pool.dispose() };
 }

@@ -24,6 +24,7 @@ import {
   type WorkerRequest,
   type WorkerResponse,
 } from './protocol';
+import { runBackoffRequest } from './handlers/backoffHandler';
 import { runEvmRequest } from './handlers/evmHandler';
 import { runExportRequest } from './handlers/exportHandler';
 import { runSpectrumRequest } from './handlers/spectrumHandler';
@@ -134,6 +135,7 @@ const handlers: { [K in Handled['type']]: Handler<Extract<Handled, { type: K }>>
   export: runExportRequest,
   spectrum: runSpectrumRequest,
   evm: runEvmRequest,
+  backoff: runBackoffRequest,
 };
 
 function handle(request: Handled, host: EngineDispatchHost): void {

@@ -13,6 +13,7 @@ import type { DspErrorCode } from '../dsp/errors';
 import type { AllocationPlan } from '../dsp/waveform/allocation';
 import type { GeneratedWaveform } from '../dsp/waveform/waveformGenerator';
 import type { WaveformPlan } from '../dsp/waveform/waveformPlan';
+import type { BackoffAnalysis } from '../dsp/backoff/backoffAnalysis';
 import type { ExportReport } from '../io/exportMetadata';
 import type { AmplifierPayload, EvmPayload, SpectrumPayload } from './measurementTypes';
 
@@ -66,7 +67,14 @@ export interface EvmRequest extends Envelope<'evm'> {
   config: unknown;
 }
 
-export type WorkerRequest = GenerateRequest | CancelRequest | ExportRequest | SpectrumRequest | EvmRequest;
+/** Least amplifier back-off meeting the EVM and ACLR limits (src/dsp/backoff), with the configuration's amplifier. */
+export interface BackoffRequest extends Envelope<'backoff'> {
+  config: unknown;
+  /** Saturated output power, dBm, for absolute usable power (optional). */
+  psatDbm?: number;
+}
+
+export type WorkerRequest = GenerateRequest | CancelRequest | ExportRequest | SpectrumRequest | EvmRequest | BackoffRequest;
 export type WorkerRequestType = WorkerRequest['type'];
 
 // ---------------------------------------------------------------------------------------------
@@ -177,7 +185,20 @@ export interface EvmResponse extends Envelope<'evm-result'> {
   elapsedMs: number;
 }
 
-export type WorkerResponse = ReadyResponse | GeneratedResponse | ExportedResponse | SpectrumResponse | EvmResponse | ErrorResponse;
+export interface BackoffResponse extends Envelope<'backoff-result'> {
+  config: WaveformConfig;
+  analysis: BackoffAnalysis;
+  elapsedMs: number;
+}
+
+export type WorkerResponse =
+  | ReadyResponse
+  | GeneratedResponse
+  | ExportedResponse
+  | SpectrumResponse
+  | EvmResponse
+  | BackoffResponse
+  | ErrorResponse;
 export type WorkerResponseType = WorkerResponse['type'];
 
 /** The responses a request can be answered with. */
@@ -189,7 +210,9 @@ export type ResponseFor<TRequest extends WorkerRequest> = TRequest extends Gener
       ? SpectrumResponse | ErrorResponse
       : TRequest extends EvmRequest
         ? EvmResponse | ErrorResponse
-        : never;
+        : TRequest extends BackoffRequest
+          ? BackoffResponse | ErrorResponse
+          : never;
 
 // ---------------------------------------------------------------------------------------------
 // Guards (messages arrive as `unknown`)
@@ -198,8 +221,8 @@ function isEnvelope(value: unknown): value is { type: unknown; id: unknown; prot
   return typeof value === 'object' && value !== null && 'type' in value && 'id' in value && 'protocolVersion' in value;
 }
 
-const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel', 'export', 'spectrum', 'evm'];
-const responseTypes: readonly WorkerResponseType[] = ['ready', 'generated', 'exported', 'spectrum-result', 'evm-result', 'error'];
+const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel', 'export', 'spectrum', 'evm', 'backoff'];
+const responseTypes: readonly WorkerResponseType[] = ['ready', 'generated', 'exported', 'spectrum-result', 'evm-result', 'backoff-result', 'error'];
 
 /** True when `value` looks like a request of a known type (its version is checked separately). */
 export function isWorkerRequest(value: unknown): value is WorkerRequest {

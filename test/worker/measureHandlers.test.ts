@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseWaveformConfig } from '../../src/config/configParse';
+import { createAmplifierFromConfig } from '../../src/dsp/amplifier/createAmplifier';
+import { analyzeBackoff } from '../../src/dsp/backoff/backoffAnalysis';
 import { measureSpectrum } from '../../src/dsp/metrics/spectrumMeasurement';
 import { createEngineClient } from '../../src/worker/client';
 import { InProcessWorker } from './inProcessWorker';
@@ -61,6 +63,26 @@ describe('EVM request', () => {
     expect(compressed.evm.evmRmsPercent).toBeGreaterThan(1);
     expect(compressed.evm.evmLimitPercent).toBe(17.5); // QPSK UE EVM limit 17.5 %, TS 36.101 Table 6.5.2.1.1-1
     expect(compressed.evm.transmitterSteps[0]).toMatch(/^amplifier/);
+    c.dispose();
+  });
+});
+
+describe('back-off request', () => {
+  it('answers with analyzeBackoff for the configuration’s amplifier and the CLI’s sweep defaults', async () => {
+    const c = client();
+    const config = { ...base, amplifier: { model: 'rapp', smoothness: 2 } };
+    const result = await c.backoff(config);
+    const parsed = parseWaveformConfig(config);
+    const expected = analyzeBackoff(parsed, { model: createAmplifierFromConfig(parsed.amplifier!), axis: 'obo', fromDb: 1, toDb: 15, stepDb: 1, toleranceDb: 0.05 });
+    expect(result.analysis).toEqual(expected);
+    expect(result.analysis.requiredOboDb).not.toBeNull();
+    c.dispose();
+  });
+
+  it('says which field is missing when there is no amplifier', async () => {
+    const c = client();
+    const error = await c.backoff(base).catch((e: unknown) => e);
+    expect(error).toMatchObject({ code: 'INVALID_CONFIG', message: expect.stringContaining('needs an amplifier'), details: { field: 'amplifier' } });
     c.dispose();
   });
 });

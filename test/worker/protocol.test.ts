@@ -10,6 +10,8 @@ import {
   PROTOCOL_VERSION,
   waveformBufferKeys,
   type CancelRequest,
+  type BackoffRequest,
+  type BackoffResponse,
   type EvmRequest,
   type EvmResponse,
   type ExportedResponse,
@@ -37,8 +39,9 @@ import {
 
 describe('protocol unions (compile time)', () => {
   it('discriminates requests and responses on type', () => {
-    expectTypeOf<WorkerRequestType>().toEqualTypeOf<'generate' | 'cancel' | 'export' | 'spectrum' | 'evm'>();
-    expectTypeOf<WorkerResponseType>().toEqualTypeOf<'ready' | 'generated' | 'exported' | 'spectrum-result' | 'evm-result' | 'error'>();
+    expectTypeOf<WorkerRequestType>().toEqualTypeOf<'generate' | 'cancel' | 'export' | 'spectrum' | 'evm' | 'backoff'>();
+    expectTypeOf<WorkerResponseType>().toEqualTypeOf<'ready' | 'generated' | 'exported' | 'spectrum-result' | 'evm-result' | 'backoff-result' | 'error'>();
+    expectTypeOf<ResponseFor<BackoffRequest>>().toEqualTypeOf<BackoffResponse | ErrorResponse>();
     expectTypeOf<ResponseFor<SpectrumRequest>>().toEqualTypeOf<SpectrumResponse | ErrorResponse>();
     expectTypeOf<ResponseFor<EvmRequest>>().toEqualTypeOf<EvmResponse | ErrorResponse>();
     expectTypeOf<SpectrumResponse['waveform']['psdPerHz']>().toEqualTypeOf<ArrayBuffer>();

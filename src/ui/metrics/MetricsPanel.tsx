@@ -32,7 +32,12 @@ function MetricLine({ row }: { row: MetricRow }) {
 export function MetricsPanel() {
   const spectrum = useAppStore((state) => state.spectrum);
   const evm = useAppStore((state) => state.evm);
-  const rows = useMemo(() => buildMetricRows({ spectrum: spectrum.data, evm: evm.data }), [spectrum.data, evm.data]);
+  const backoff = useAppStore((state) => state.backoff);
+  const hasAmplifier = useAppStore((state) => state.submittedDraft?.amplifier !== undefined);
+  const rows = useMemo(
+    () => buildMetricRows({ spectrum: spectrum.data, evm: evm.data, backoff: backoff.data, hasAmplifier }),
+    [spectrum.data, evm.data, backoff.data, hasAmplifier],
+  );
   const groups = [...new Set(rows.map((r) => r.group))];
   const busy = spectrum.status === 'running' || evm.status === 'running';
   return (

@@ -2,7 +2,7 @@
  * The metrics summary: one row per figure with its unit, how it is defined and which standard it follows, built
  * from the engine's results (values are formatted, never recomputed). Pure, so it is tested without a browser.
  */
-import type { EvmResult, SpectrumResult } from '../../worker/client';
+import type { BackoffResult, EvmResult, SpectrumResult } from '../../worker/client';
 
 export type MetricStatus = 'pass' | 'fail' | null;
 
@@ -25,6 +25,8 @@ export interface MetricRow {
 export interface MetricInputs {
   spectrum: SpectrumResult | null;
   evm: EvmResult | null;
+  backoff: BackoffResult | null;
+  hasAmplifier: boolean;
 }
 
 const fixed = (v: number | null | undefined, digits: number) => (v === null || v === undefined || !Number.isFinite(v) ? '–' : v.toFixed(digits));
@@ -126,5 +128,51 @@ function amplifierRows(spectrum: SpectrumResult | null): MetricRow[] {
 }
 
 export function buildMetricRows(inputs: MetricInputs): MetricRow[] {
-  return [...evmRows(inputs.evm), ...spectrumRows(inputs.spectrum), ...amplifierRows(inputs.spectrum)];
+  return [...evmRows(inputs.evm), ...spectrumRows(inputs.spectrum), ...amplifierRows(inputs.spectrum), ...backoffRows(inputs.backoff, inputs.hasAmplifier)];
+}
+
+/** Rows for the back-off answer: required OBO with its uncertainty and what limits it, usable output, MPR context. */
+export function backoffRows(backoff: BackoffResult | null, hasAmplifier: boolean): MetricRow[] {
+  if (!hasAmplifier) return [];
+  const a = backoff?.analysis ?? null;
+  const s = a?.solution ?? null;
+  const limiting = s === null || s.limitingMetric === null ? '' : s.limitingMetric === 'evm' ? 'limited by EVM' : `limited by ACLR ${s.limitingChannel ?? ''}`;
+  const rows: MetricRow[] = [
+    {
+      id: 'required-obo',
+      label: 'Required back-off',
+      value: a === null ? '–' : a.requiredOboDb === null ? 'not reached' : `${fixed(a.requiredOboDb, 2)}${s?.uncertaintyDb ? ` ± ${fixed(s.uncertaintyDb, 2)}` : ''}`,
+      unit: 'dB',
+      definition: `Least output back-off at which EVM and every ACLR meet their limits: swept 1–15 dB, then bracketed and bisected; uncertainty from the bracket and the limiting metric's statistical error over its slope${limiting ? `; ${limiting}` : ''}.`,
+      standard: a === null ? 'limits: TS 36.101 / TS 38.101-1' : `EVM ${a.limits.evm?.source ?? 'no limit'}; ACLR ${Object.values(a.limits.aclr)[0]?.source ?? 'no limit'}`,
+      status: a === null ? null : a.requiredOboDb === null ? 'fail' : null,
+      limit: null,
+      group: 'Amplifier',
+    },
+    {
+      id: 'usable-power',
+      label: 'Usable mean output',
+      value: a === null || a.requiredOboDb === null ? '–' : a.usableOutputDbm !== null ? fixed(a.usableOutputDbm, 2) : fixed(-a.requiredOboDb, 2),
+      unit: a?.usableOutputDbm !== null && a?.usableOutputDbm !== undefined ? 'dBm' : 'dB re P_sat',
+      definition: 'Mean output power the amplifier can deliver while meeting the limits: P_sat − required OBO.',
+      standard: 'common practice (PA back-off definitions)',
+      status: null,
+      limit: null,
+      group: 'Amplifier',
+    },
+  ];
+  if (a?.mpr) {
+    rows.push({
+      id: 'mpr',
+      label: 'MPR allowance',
+      value: `≤ ${fixed(a.mpr.maxMprDb, 1)}`,
+      unit: 'dB',
+      definition: `Maximum power reduction the standard allows for this allocation (${a.mpr.condition}), for comparison with the measured back-off.`,
+      standard: a.mpr.source,
+      status: null,
+      limit: null,
+      group: 'Amplifier',
+    });
+  }
+  return rows;
 }

@@ -102,6 +102,8 @@ export function buildConstellationFigure(
         xanchor: 'left',
       },
       showlegend: received !== null,
+      legend: { orientation: 'h', x: 0, xanchor: 'left', y: -0.16, yanchor: 'top' },
+      margin: { ...base.margin, b: 70 },
       xaxis: { ...base.xaxis, title: { text: 'I' }, range: [-limit, limit], zeroline: true },
       yaxis: { ...base.yaxis, title: { text: 'Q' }, range: [-limit, limit], zeroline: true, scaleanchor: 'x', scaleratio: 1 },
     },

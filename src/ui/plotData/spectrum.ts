@@ -78,7 +78,7 @@ export function buildSpectrumFigure(input: SpectrumFigureInput, theme: PlotTheme
   const data: Data[] = [];
   for (const overlay of input.overlays) data.push(line(overlay.name, overlay.spectrum, overlay.colour, 1.1, 'dot'));
   if (input.generated !== null) data.push(line('as generated', input.generated, theme.boundary, 1));
-  data.push(line(input.label, primary, theme.series[0] ?? theme.inPhase, 1.5));
+  data.push(line(input.label, primary, theme.text, 1.6));
 
   const shapes: Shape[] = [];
   const annotations: Annotation[] = [];
@@ -139,6 +139,8 @@ export function buildSpectrumFigure(input: SpectrumFigureInput, theme: PlotTheme
         x: 0,
         xanchor: 'left',
       },
+      legend: { orientation: 'h', x: 0, xanchor: 'left', y: -0.2, yanchor: 'top' },
+      margin: { ...base.margin, b: 80 },
       xaxis: { ...base.xaxis, title: { text: 'frequency offset (MHz)' }, range: [-spanMHz * 1.05, spanMHz * 1.05] },
       yaxis: { ...base.yaxis, title: { text: `dBc in ${(primary.rbwHz / 1e3).toFixed(1)} kHz` }, range: [floorDb, 5] },
       shapes,

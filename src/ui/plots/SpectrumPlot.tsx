@@ -2,13 +2,22 @@ import { useMemo } from 'react';
 import { plotThemes } from '../plotData/plotTheme';
 import { buildSpectrumFigure } from '../plotData/spectrum';
 import { useAppStore } from '../state/AppStoreContext';
+import { usePinnedOverlays } from '../state/useOverlays';
 import { PlotlyFigure } from './PlotlyFigure';
 
 /** Welch PSD with the ACLR channels shaded and their values; the transmitted spectrum when a chain is configured. */
 export function SpectrumPlot() {
   const spectrum = useAppStore((state) => state.spectrum);
   const scheme = useAppStore((state) => state.colorScheme);
-  const overlays = useAppStore((state) => state.spectrumOverlays);
+  const pinned = usePinnedOverlays();
+  const overlays = useMemo(
+    () =>
+      pinned.flatMap((p) => {
+        const s = p.measurement?.spectrum;
+        return s === undefined ? [] : [{ name: p.name, colour: p.colour, spectrum: s.transmitted ?? s.waveform }];
+      }),
+    [pinned],
+  );
   const figure = useMemo(() => {
     const data = spectrum.data;
     if (data === null) return null;

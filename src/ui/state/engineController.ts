@@ -12,12 +12,36 @@ import type { AppStore } from './store';
 export interface EngineControllerOptions {
   /** Called when a configuration goes to the engine (the update timer marks it). */
   onSubmit?: (seq: number) => void;
+  /** The back-off sweep takes seconds: it starts only after the configuration has rested this long (default 500 ms). */
+  backoffDelayMs?: number;
 }
 
 const describe = (error: unknown) => (error instanceof Error ? error.message : String(error));
 
 export function connectEngine(store: AppStore, client: EngineClient, options: EngineControllerOptions = {}): () => void {
   const current = (draft: ConfigDraft) => store.getState().submittedDraft === draft;
+
+  let backoffTimer: ReturnType<typeof setTimeout> | null = null;
+  const runBackoff = (draft: ConfigDraft, seq: number): void => {
+    if (backoffTimer !== null) clearTimeout(backoffTimer);
+    client.pool.cancelLane('backoff');
+    if (draft.amplifier === undefined) {
+      store.getState().measurementCleared('backoff', seq);
+      return;
+    }
+    store.getState().measurementStarted('backoff');
+    backoffTimer = setTimeout(() => {
+      backoffTimer = null;
+      client.backoff(draft).then(
+        (result) => {
+          if (current(draft)) store.getState().measurementSucceeded('backoff', result, seq);
+        },
+        (error: unknown) => {
+          if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('backoff', describe(error));
+        },
+      );
+    }, options.backoffDelayMs ?? 500);
+  };
 
   const run = (draft: ConfigDraft): void => {
     const state = store.getState();
@@ -58,11 +82,16 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
         if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('evm', describe(error));
       },
     );
+    runBackoff(draft, seq);
   };
 
   const initial = store.getState().submittedDraft;
   if (initial !== null) run(initial);
-  return store.subscribe((state, previous) => {
+  const unsubscribe = store.subscribe((state, previous) => {
     if (state.submittedDraft !== null && state.submittedDraft !== previous.submittedDraft) run(state.submittedDraft);
   });
+  return () => {
+    unsubscribe();
+    if (backoffTimer !== null) clearTimeout(backoffTimer);
+  };
 }
