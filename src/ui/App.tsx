@@ -49,25 +49,25 @@ export function App() {
       <main className="workbench">
         <ConfigPanel />
         <div className="plots">
-          <PlotPanel title="Time samples" panelId="time" size="wide">
+          <PlotPanel title="Time samples" panelId="time" exportId="time-samples-plot" size="wide">
             <TimeSamplesPlot />
           </PlotPanel>
-          <PlotPanel title="Constellation" panelId="constellation">
+          <PlotPanel title="Constellation" panelId="constellation" exportId="constellation-plot">
             <ConstellationPlot />
           </PlotPanel>
-          <PlotPanel title="Resource grid" panelId="grid">
+          <PlotPanel title="Resource grid" panelId="grid" exportId="resource-grid-plot">
             <ResourceGridPlot />
           </PlotPanel>
-          <PlotPanel title="Spectrum and adjacent channels" panelId="spectrum" size="wide">
+          <PlotPanel title="Spectrum and adjacent channels" panelId="spectrum" exportId="spectrum-plot" size="wide">
             <SpectrumPlot />
           </PlotPanel>
-          <PlotPanel title="Amplifier transfer" panelId="amplifier">
+          <PlotPanel title="Amplifier transfer" panelId="amplifier" exportId="amplifier-plot">
             <AmplifierPlot />
           </PlotPanel>
-          <PlotPanel title="Receiver EVM" panelId="receiver">
+          <PlotPanel title="Receiver EVM" panelId="receiver" exportId="receiver-plot">
             <ReceiverPlot />
           </PlotPanel>
-          <PlotPanel title="Back-off against limits" panelId="backoff" size="wide">
+          <PlotPanel title="Back-off against limits" panelId="backoff" exportId="backoff-plot" size="wide">
             <BackoffPlot />
           </PlotPanel>
           <ComparisonTable />

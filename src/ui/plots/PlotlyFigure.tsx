@@ -1,6 +1,7 @@
 import type { Config, Data, Layout } from 'plotly.js-dist-min';
 import { useEffect, useRef, useState } from 'react';
 import { useUpdateTimer } from '../perf/UpdateTimerContext';
+import { registerFigure, unregisterFigure } from './figureRegistry';
 import { loadPlotly } from './loadPlotly';
 
 export interface Figure {
@@ -55,6 +56,7 @@ export function PlotlyFigure({ figure, label, testId, epoch }: PlotlyFigureProps
       .then(() => {
         if (!current) return;
         drawnFigure.current = figure;
+        registerFigure(testId, { box, figure });
         renderCount.current += 1;
         box.dataset.renderCount = String(renderCount.current);
         if (epoch !== undefined) {
@@ -78,6 +80,7 @@ export function PlotlyFigure({ figure, label, testId, epoch }: PlotlyFigureProps
     const box = boxRef.current;
     return () => {
       mounted.current = false;
+      unregisterFigure(testId);
       if (box !== null) void loadPlotly().then((Plotly) => (mounted.current ? undefined : Plotly.purge(box)));
     };
   }, []);
