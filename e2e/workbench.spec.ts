@@ -27,8 +27,10 @@ test('opens the demo: every panel draws from the workers, no console errors, no 
   const timeTraces = await page.getByTestId('time-samples-plot').evaluate((element) =>
     ((element as HTMLElement & { data?: { name: string; x: ArrayLike<number> }[] }).data ?? []).map((t) => `${t.name}:${t.x.length}`),
   );
-  // Symbol 0 spans 4 × (1024 + 80) samples (TS 36.211 Table 5.6-1, scaled to N_FFT 1024 and 4×).
-  expect(timeTraces).toEqual(['I:4416', 'Q:4416', '|x|:4416', 'peak:1']);
+  // Symbol 0 spans 4 × (1024 + 80) = 4416 samples (TS 36.211 Table 5.6-1, scaled to N_FFT 1024 and 4×), drawn as
+  // min/max buckets of 9 samples: 2 × ⌈4416/9⌉ = 982 points per trace.
+  expect(timeTraces).toEqual(['I:982', 'Q:982', '|x|:982', 'peak:1']);
+  await expect(page.getByTestId('time-samples-plot').locator('.gtitle')).toContainText('4416 samples');
   // The Rapp PA at 6 dB OBO leaves EVM well under the 16QAM limit of 12.5 % (TS 36.101 Table 6.5.2.1.1-1) and the
   // measured OBO equals the configured one.
   await expect(metricValue(page, 'evm')).toHaveText(/^\d+\.\d+$/);

@@ -11,7 +11,7 @@ import type { SpectrumData } from '../../worker/client';
 import { baseLayout, type PlotTheme } from './plotTheme';
 
 /** Most points per trace; longer spectra keep each group's maximum (peak hold), so spurs and edges stay visible. */
-export const MAX_SPECTRUM_POINTS = 2400;
+export const MAX_SPECTRUM_POINTS = 1200;
 
 export interface SpectrumLine {
   frequencyMHz: Float64Array;

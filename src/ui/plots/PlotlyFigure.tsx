@@ -51,8 +51,15 @@ export function PlotlyFigure({ figure, label, testId, epoch }: PlotlyFigureProps
       return;
     }
     let current = true;
+    if (epoch !== undefined) performance.mark(`crestline:draw-start:${testId}:${epoch}`);
     loadPlotly()
-      .then((Plotly) => (current ? Plotly.react(box, figure.data, figure.layout, plotConfig) : undefined))
+      .then((Plotly) => {
+        if (!current) return undefined;
+        const t = performance.now();
+        const done = Plotly.react(box, figure.data, figure.layout, plotConfig);
+        performance.measure(`crestline:react:${testId}`, { start: t, end: performance.now() });
+        return done;
+      })
       .then(() => {
         if (!current) return;
         drawnFigure.current = figure;
@@ -61,6 +68,7 @@ export function PlotlyFigure({ figure, label, testId, epoch }: PlotlyFigureProps
         box.dataset.renderCount = String(renderCount.current);
         if (epoch !== undefined) {
           box.dataset.epoch = String(epoch);
+          performance.mark(`crestline:drawn:${testId}:${epoch}`);
           timer?.rendered(testId, epoch);
         }
         setLoadError(null);

@@ -47,6 +47,17 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
     const state = store.getState();
     const seq = state.submittedSeq;
     options.onSubmit?.(seq);
+    // The EVM takes longest (three receiver passes): it goes first, so it runs on one worker while the waveform
+    // and then the spectrum run on the other.
+    state.measurementStarted('evm');
+    client.evm(draft).then(
+      (result) => {
+        if (current(draft)) store.getState().measurementSucceeded('evm', result, seq);
+      },
+      (error: unknown) => {
+        if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('evm', describe(error));
+      },
+    );
     state.requestStarted();
     client.generate(draft).then(
       (result) => {
@@ -71,15 +82,6 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
       },
       (error: unknown) => {
         if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('spectrum', describe(error));
-      },
-    );
-    state.measurementStarted('evm');
-    client.evm(draft).then(
-      (result) => {
-        if (current(draft)) store.getState().measurementSucceeded('evm', result, seq);
-      },
-      (error: unknown) => {
-        if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('evm', describe(error));
       },
     );
     runBackoff(draft, seq);

@@ -1,4 +1,4 @@
-import { useMemo } from 'react';
+import { useMemo, useRef } from 'react';
 import type { SavedScenario } from '../persist/workspaceArchive';
 import { plotThemes } from '../plotData/plotTheme';
 import { useAppStore } from './AppStoreContext';
@@ -21,10 +21,10 @@ export function usePinnedOverlays(): PinnedOverlay[] {
   const scenarios = useAppStore((state) => state.scenarios);
   const measurements = useAppStore((state) => state.scenarioMeasurements);
   const baselineId = useAppStore((state) => state.baselineId);
-  const submitted = useAppStore((state) => state.submittedDraft);
+  const currentKey = useAppStore((state) => (state.submittedDraft === null ? null : JSON.stringify(state.submittedDraft)));
   const scheme = useAppStore((state) => state.colorScheme);
-  return useMemo(() => {
-    const currentKey = submitted === null ? null : JSON.stringify(submitted);
+  const previous = useRef<PinnedOverlay[]>([]);
+  const next = useMemo(() => {
     const series = plotThemes[scheme].series;
     return scenarios.map((s: SavedScenario, i) => ({
       id: s.id,
@@ -34,5 +34,14 @@ export function usePinnedOverlays(): PinnedOverlay[] {
       isBaseline: s.id === baselineId,
       sameAsCurrent: currentKey !== null && scenarioKey(s) === currentKey,
     }));
-  }, [scenarios, measurements, baselineId, submitted, scheme]);
+  }, [scenarios, measurements, baselineId, currentKey, scheme]);
+  // Keep the same array while nothing a plot uses changed (an edit of the form alone must not redraw the overlays).
+  const same =
+    next.length === previous.current.length &&
+    next.every((o, i) => {
+      const p = previous.current[i]!;
+      return o.id === p.id && o.name === p.name && o.colour === p.colour && o.measurement === p.measurement && o.isBaseline === p.isBaseline && o.sameAsCurrent === p.sameAsCurrent;
+    });
+  if (!same) previous.current = next;
+  return previous.current;
 }
