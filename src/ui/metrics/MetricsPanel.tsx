@@ -16,13 +16,14 @@ function MetricLine({ row }: { row: MetricRow }) {
           <em>{row.standard}</em>
         </span>
       </th>
-      <td className="num" data-value>
-        {row.value}
-      </td>
-      <td className="unit">{row.unit}</td>
-      <td className="metric-limit">
-        {row.limit !== null && <span>{row.limit}</span>}
-        {row.status !== null && <span className={`verdict verdict-${row.status}`}>{row.status === 'pass' ? 'pass' : 'FAIL'}</span>}
+      <td className="num">
+        <span data-value>{row.value}</span> <span className="unit">{row.unit}</span>
+        {(row.limit !== null || row.status !== null) && (
+          <span className="metric-limit">
+            {row.limit !== null && <span>limit {row.limit}</span>}
+            {row.status !== null && <span className={`verdict verdict-${row.status}`}>{row.status === 'pass' ? 'pass' : 'FAIL'}</span>}
+          </span>
+        )}
       </td>
     </tr>
   );
@@ -49,7 +50,7 @@ export function MetricsPanel() {
         {groups.map((group) => (
           <tbody key={group}>
             <tr className="metric-group">
-              <th colSpan={4} scope="rowgroup">
+              <th colSpan={2} scope="rowgroup">
                 {group}
               </th>
             </tr>
