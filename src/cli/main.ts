@@ -5,9 +5,11 @@ import { registerBackoff } from './commands/backoff';
 import { registerGenerate } from './commands/generate';
 import { registerInspect } from './commands/inspect';
 import { registerLink } from './commands/link';
+import { registerMeasure } from './commands/measure';
+import { registerMerge } from './commands/merge';
 
 /** Every subcommand registers itself here; each lives in src/cli/commands/<name>.ts. */
-const COMMANDS: readonly ((program: Command, io: CliIo) => void)[] = [registerGenerate, registerInspect, registerAnalyze, registerLink, registerBackoff];
+const COMMANDS: readonly ((program: Command, io: CliIo) => void)[] = [registerGenerate, registerInspect, registerAnalyze, registerLink, registerBackoff, registerMeasure, registerMerge];
 
 /** Where a command prints; tests pass their own. */
 export interface CliIo {

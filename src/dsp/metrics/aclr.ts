@@ -17,6 +17,7 @@ export interface AdjacentChannel {
   readonly source: string;
 }
 
+/** The assigned channel's filter and the adjacent channels to measure. */
 export interface AclrPlan {
   /** Filter of the assigned channel (centred at 0 Hz). */
   readonly assignedFilter: ChannelFilter;
@@ -72,6 +73,7 @@ export function aclrSpanHz(plan: AclrPlan): number {
   return span;
 }
 
+/** ACLR of one adjacent channel. */
 export interface AclrValue {
   readonly key: string;
   readonly label: string;
@@ -82,6 +84,7 @@ export interface AclrValue {
   readonly source: string;
 }
 
+/** ACLR of every adjacent channel, with the assigned-channel power and the method used. */
 export interface AclrResult {
   /** Power in the assigned channel's filter, |x|² units. */
   readonly assignedPower: number;

@@ -3,7 +3,9 @@ import { wilsonInterval, Z_95 } from './confidence';
 
 /** The probabilities at which levels are reported, and their JSON keys. */
 export const LEVEL_PROBABILITIES = [1e-1, 1e-2, 1e-3, 1e-4, 1e-5] as const;
+/** JSON keys of LEVEL_PROBABILITIES. */
 export const LEVEL_KEYS = ['1e-1', '1e-2', '1e-3', '1e-4', '1e-5'] as const;
+/** One of LEVEL_KEYS. */
 export type LevelKey = (typeof LEVEL_KEYS)[number];
 
 /**
@@ -22,6 +24,7 @@ export interface LevelEstimate {
   readonly ci95Db: readonly [number | null, number | null] | null;
 }
 
+/** How `levelsFromHistogram` names and counts the values. */
 export interface LevelOptions {
   /** Names the statistic in warnings, e.g. "PAPR (peak / run mean)". */
   readonly what: string;
@@ -61,13 +64,11 @@ export function levelsFromHistogram(
     return counts.length - 1;
   };
   const centreOrNull = (j: number): number | null => (j >= 1 && j <= histogram.numBins ? binCentreDb(histogram, j) : null);
-  const levels = probabilities.map((p, i): LevelEstimate => {
-    const key = (LEVEL_KEYS[i] ?? String(p)) as LevelKey;
+  const tooShort: { key: string; needed: number }[] = [];
+  const levels = probabilities.map((p): LevelEstimate => {
+    const key = probabilityKey(p) as LevelKey;
     if (trials * p < MIN_EXPECTED_EXCEEDANCES) {
-      const needed = Math.ceil(MIN_EXPECTED_EXCEEDANCES / (p * scale));
-      warnings.push(
-        `${options.what} at ${key}: the run has ${total} ${options.unit}, fewer than the ${needed} needed for about ${MIN_EXPECTED_EXCEEDANCES} values beyond that probability, so this level is reported as null. Run more symbols.`,
-      );
+      tooShort.push({ key, needed: Math.ceil(MIN_EXPECTED_EXCEEDANCES / (p * scale)) });
       return { key, probability: p, levelDb: null, ci95Db: null };
     }
     const j = firstBin((k) => k <= p * trials);
@@ -81,7 +82,19 @@ export function levelsFromHistogram(
     }
     return { key, probability: p, levelDb, ci95Db: [centreOrNull(lower), centreOrNull(upper)] };
   });
+  if (tooShort.length > 0) {
+    const plural = tooShort.length > 1;
+    warnings.unshift(
+      `${options.what} at ${tooShort.map((t) => t.key).join(', ')}: the run has ${total} ${options.unit}, fewer than the ${tooShort.map((t) => t.needed).join(', ')} needed for about ${MIN_EXPECTED_EXCEEDANCES} values beyond ${plural ? 'each probability' : 'that probability'}, so ${plural ? 'these levels are' : 'this level is'} reported as null. Run more symbols.`,
+    );
+  }
   return { levels, warnings };
+}
+
+/** JSON key of a probability: "1e-3" for the standard ones, the number's shortest form otherwise ("0.05"). */
+export function probabilityKey(probability: number): string {
+  const i = LEVEL_PROBABILITIES.indexOf(probability as (typeof LEVEL_PROBABILITIES)[number]);
+  return i >= 0 ? LEVEL_KEYS[i]! : String(probability);
 }
 
 /** A CCDF curve for plotting: P(X ≥ threshold) at each bin's lower edge, trimmed to where it leaves 1 and reaches 0. */

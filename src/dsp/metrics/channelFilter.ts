@@ -3,6 +3,7 @@ import type { PowerSpectrum } from './welchPsd';
 
 /** UTRA chip rate, 3.84 Mcps, and its measurement filter's roll-off 0.22 (TS 25.101; TS 36.101 §6.6.2.3). */
 export const UTRA_CHIP_RATE_HZ = 3.84e6;
+/** Roll-off of the UTRA measurement RRC filter. */
 export const UTRA_RRC_ROLL_OFF = 0.22;
 
 /**

@@ -14,6 +14,7 @@ export const CM_SLOPE_DEFAULT = 1.56;
 /** Slope when every channelisation code C_SF,N used has N < SF/2 (TS 25.101 §6.2.2). */
 export const CM_SLOPE_WCDMA_LOW_CODES = 1.85;
 
+/** Constants of the cubic metric (defaults: k = 1.56, unrounded). */
 export interface CubicMetricOptions {
   /** Empirical slope k (default CM_SLOPE_DEFAULT = 1.56). */
   readonly slope?: number;
@@ -21,6 +22,7 @@ export interface CubicMetricOptions {
   readonly roundUpToHalfDb?: boolean;
 }
 
+/** A cubic metric with the raw value and the constants used. */
 export interface CubicMetricResult {
   /** 10·log10(E|v|⁶/(E|v|²)³), dB: 0 for a constant envelope, 10·log10 6 ≈ 7.78 for a complex Gaussian. */
   readonly rawCubicMetricDb: number;

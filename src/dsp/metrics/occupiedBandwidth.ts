@@ -4,6 +4,7 @@ import type { PowerSpectrum } from './welchPsd';
 /** Share of the total power the occupied bandwidth holds: 99 %, 0.5 % left outside on each side (TS 36.101 §6.6.1, from memory — verify). */
 export const OBW_POWER_FRACTION = 0.99;
 
+/** The occupied bandwidth and its edges, Hz. */
 export interface OccupiedBandwidth {
   readonly occupiedBandwidthHz: number;
   /** Frequency below which 0.5 % of the power lies, Hz. */

@@ -2,6 +2,7 @@ import { DspError } from '../errors';
 
 /** Windows offered for Welch spectra. */
 export type SpectralWindowKind = 'hann' | 'flat-top' | 'blackman-harris';
+/** Every window kind, for option checks. */
 export const SPECTRAL_WINDOWS: readonly SpectralWindowKind[] = ['hann', 'flat-top', 'blackman-harris'];
 
 /**

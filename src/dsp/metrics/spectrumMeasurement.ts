@@ -7,6 +7,7 @@ import { computeOccupiedBandwidth, type OccupiedBandwidth } from './occupiedBand
 import type { SpectralWindowKind } from './spectralWindows';
 import { createWelchAccumulator, createWelchPlan, finishWelch, pushWelchSamples, type PowerSpectrum } from './welchPsd';
 
+/** Settings of `measureSpectrum`. */
 export interface SpectrumRequest {
   /** Lowest oversampling to use (the statistics' oversampling); raised when the adjacent channels do not fit. */
   readonly oversampling: number;

@@ -26,6 +26,7 @@ export interface WelchPlan {
   readonly fft: FftPlan;
 }
 
+/** Sample rate, requested RBW and window of a Welch estimate. */
 export interface WelchOptions {
   readonly sampleRateHz: number;
   /** Requested resolution bandwidth, Hz. */
@@ -83,6 +84,7 @@ export interface WelchAccumulator {
   readonly spectrumIq: Float64Array;
 }
 
+/** An empty running estimate for `plan` (buffers of 2·N values, allocated once). */
 export function createWelchAccumulator(plan: WelchPlan): WelchAccumulator {
   const n = plan.segmentLength;
   return {

@@ -52,8 +52,9 @@ describe('CCDF levels with 95 % intervals', () => {
     const { levels, warnings } = levelsFromHistogram(h, { what: 'PAPR', unit: 'symbols' });
     // 1e-3 of 5000 expects 5 exceedances, fewer than the 10 required.
     expect(levels.map((l) => l.levelDb)).toEqual([0, 0, null, null, null]);
-    expect(warnings[0]).toMatch(/PAPR at 1e-3: the run has 5000 symbols, fewer than the 10000 needed/);
-    expect(warnings).toHaveLength(3);
+    expect(warnings).toEqual([
+      'PAPR at 1e-3, 1e-4, 1e-5: the run has 5000 symbols, fewer than the 10000, 100000, 1000000 needed for about 10 values beyond each probability, so these levels are reported as null. Run more symbols.',
+    ]);
     // 5000 correlated values worth 500 independent trials: only 1e-1 is reported.
     const scaled = levelsFromHistogram(h, { what: 'power', unit: 'samples', trialsPerValue: 0.1 });
     expect(scaled.levels.map((l) => l.levelDb)).toEqual([0, null, null, null, null]);
@@ -66,6 +67,7 @@ describe('CCDF levels with 95 % intervals', () => {
     const { levels } = levelsFromHistogram(h, { what: 'x', unit: 'values' }, [0.05, 0.01, 0.005]);
     // P(X > 0.00) = 0.01: above 0.05 → level 0.00 at p = 0.05 and at p = 0.01; at 0.005 the level is 10.00.
     expect(levels.map((l) => l.levelDb)).toEqual([0, 0, 10]);
+    expect(levels.map((l) => l.key)).toEqual(['0.05', '1e-2', '0.005']);
     const curve = ccdfCurve(h);
     expect(curve.thresholdDb[0]).toBe(-0.005);
     expect(curve.probability[0]).toBe(1);

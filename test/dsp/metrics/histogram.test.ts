@@ -15,7 +15,7 @@ import { TEST_SEED } from '../../helpers/seed';
 function referenceBin(edges: Float64Array, p: number): number {
   let lo = 0;
   let hi = edges.length - 1;
-  // Largest j with edges[j] ≤ p; edges[0] = −∞, edges[last] = +∞.
+  // Largest j with edges[j] ≤ p; edges[0] = −∞; the last entry (a sentinel) is never read.
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
     if (edges[mid]! <= p) lo = mid;
@@ -55,6 +55,22 @@ describe('0.01 dB histogram bins (exact, linear-domain edges)', () => {
     }
   });
 
+  it('single-precision powers use their own table and land in the same bins as the edge search', () => {
+    const rng = createRng(TEST_SEED + 2);
+    const values = new Float32Array(100000);
+    for (let i = 0; i < values.length; i++) values[i] = reference * 10 ** ((-35 + 70 * rng.nextFloat()) / 10);
+    // Include float values right at and just below edges.
+    for (let j = 1; j < 2000; j++) {
+      values[2 * j] = binner.lowerEdges[3 * j]!;
+      values[2 * j + 1] = Math.fround(binner.lowerEdges[3 * j]! * (1 - 2 ** -23));
+    }
+    const viaF32 = createDbHistogram(POWER_HISTOGRAM_SPEC);
+    binPowersInto(binner, values, 0, values.length, viaF32);
+    const direct = createDbHistogram(POWER_HISTOGRAM_SPEC);
+    for (const v of values) direct.counts[referenceBin(binner.lowerEdges, v)]!++;
+    expect(Array.from(viaF32.counts)).toEqual(Array.from(direct.counts));
+  });
+
   it('a value reads as its dB value rounded to 0.01 dB; zero and tiny powers underflow, huge ones overflow', () => {
     const at = (db: number) => binIndexOfPower(binner, reference * 10 ** (db / 10));
     expect(binCentreDb(h, at(8.391))).toBe(8.39);
@@ -63,6 +79,11 @@ describe('0.01 dB histogram bins (exact, linear-domain edges)', () => {
     expect(binIndexOfPower(binner, 0)).toBe(0);
     expect(binIndexOfPower(binner, reference * 1e-4)).toBe(0);
     expect(binIndexOfPower(binner, reference * 1e4)).toBe(h.numBins + 1);
+    // The fused Monte-Carlo kernels compare every value with the next edge: +∞ and NaN must stay in the overflow bin.
+    const odd = createDbHistogram(POWER_HISTOGRAM_SPEC);
+    binPowersInto(binner, Float64Array.from([Number.POSITIVE_INFINITY, Number.NaN, 0]), 0, 3, odd);
+    expect(odd.counts[h.numBins + 1]).toBe(2);
+    expect(odd.counts[0]).toBe(1);
   });
 
   it('counts add exactly: binning in chunks and merging equals binning at once', () => {
