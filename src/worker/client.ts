@@ -13,6 +13,7 @@
 import type { WaveformConfig } from '../config/schema';
 import type { BackoffAnalysis } from '../dsp/backoff/backoffAnalysis';
 import type { ExportReport } from '../io/exportMetadata';
+import type { BlockRecord, CcdfReportPayload, CcdfRunSpec, CurvePayload, HistogramSetPayload } from './ccdfTypes';
 import type { AmplifierPayload, EvmPayload, SpectrumPayload } from './measurementTypes';
 import { waveformBufferKeys, waveformBufferViews, type EngineWaveform, type GeneratedResponse } from './protocol';
 import {
@@ -99,6 +100,29 @@ function viewAmplifier(p: AmplifierPayload): AmplifierData {
   };
 }
 
+/** A statistics report with its curves viewed as Float64Arrays. */
+export type CcdfResult = CcdfReportPayload<Float64Array>;
+
+/** One lane task of a long run: the blocks it measured and the lane's counts so far (kept as buffers for the merge). */
+export interface CcdfLaneResult {
+  laneId: string;
+  records: BlockRecord[];
+  lane: HistogramSetPayload;
+  elapsedMs: number;
+}
+
+function viewCurve(c: CurvePayload): CurvePayload<Float64Array> {
+  return { thresholdDb: new Float64Array(c.thresholdDb), probability: new Float64Array(c.probability) };
+}
+
+export function viewCcdfResult(p: CcdfReportPayload): CcdfResult {
+  return {
+    ...p,
+    curves: { power: viewCurve(p.curves.power), paprRunMean: viewCurve(p.curves.paprRunMean), paprSymbolMean: viewCurve(p.curves.paprSymbolMean) },
+    theory: { power: viewCurve(p.theory.power), paprNyquist: viewCurve(p.theory.paprNyquist), paprOversampled: viewCurve(p.theory.paprOversampled) },
+  };
+}
+
 /** Lane and priority of each kind of request (newest wins within a lane). */
 export interface RequestRouting {
   lane?: string;
@@ -115,6 +139,12 @@ export interface EngineClient {
   evm(config: unknown, routing?: RequestRouting): Promise<EvmResult>;
   /** Back-off sweep and solver with the configuration's amplifier. Default lane "backoff", background priority. */
   backoff(config: unknown, routing?: RequestRouting, psatDbm?: number): Promise<BackoffResult>;
+  /** Power CCDF, PAPR and cubic metric of a short Monte-Carlo run, in one request. Default lane "ccdf". */
+  ccdf(config: unknown, run: CcdfRunSpec, routing?: RequestRouting): Promise<CcdfResult>;
+  /** Long runs (ccdfRun.ts): measure `blocks` into a worker's lane for `laneRunKey`. */
+  ccdfLane(config: unknown, run: CcdfRunSpec, blocks: number[], laneRunKey: string, routing: RequestRouting): Promise<CcdfLaneResult>;
+  /** Long runs: merge the lanes' latest counts and all block records into a report. */
+  ccdfMerge(config: unknown, run: CcdfRunSpec, lanes: HistogramSetPayload[], records: BlockRecord[], routing: RequestRouting): Promise<CcdfResult>;
   /** The pool behind the client, for long runs that spread blocks over the workers (ccdfRun.ts). */
   readonly pool: WorkerPool;
   /** Terminates the workers; pending requests settle with SupersededError. */
@@ -204,5 +234,25 @@ export function createEngineClient(options: EngineClientOptions = {}): EngineCli
     return { config: r.config, analysis: r.analysis, elapsedMs: r.elapsedMs };
   };
 
-  return { generate, exportFile, spectrum, evm, backoff, pool, dispose: () => pool.dispose() };
+  const ccdf = async (config: unknown, run: CcdfRunSpec, routing?: RequestRouting): Promise<CcdfResult> => {
+    const { result } = pool.run({ type: 'ccdf', config, run }, route(routing, 'ccdf'));
+    const r = expectResponse(await result, 'ccdf-result');
+    if (r.result === null) throw new Error('The engine answered a statistics request without its report.');
+    return viewCcdfResult(r.result);
+  };
+
+  const ccdfLane = async (config: unknown, run: CcdfRunSpec, blocks: number[], laneRunKey: string, routing: RequestRouting): Promise<CcdfLaneResult> => {
+    const { result } = pool.run({ type: 'ccdf', config, run, blocks, laneRunKey }, route(routing, 'ccdf-lane'));
+    const r = expectResponse(await result, 'ccdf-result');
+    if (r.lane === null) throw new Error('The engine answered a lane request without the lane counts.');
+    return { laneId: r.laneId, records: r.records, lane: r.lane, elapsedMs: r.elapsedMs };
+  };
+
+  const ccdfMerge = async (config: unknown, run: CcdfRunSpec, lanes: HistogramSetPayload[], records: BlockRecord[], routing: RequestRouting): Promise<CcdfResult> => {
+    // The lanes' buffers are copied, not moved: the run keeps them for the next merge.
+    const { result } = pool.run({ type: 'ccdf-merge', config, run, lanes, records }, route(routing, 'ccdf-merge'));
+    return viewCcdfResult(expectResponse(await result, 'ccdf-merged').result);
+  };
+
+  return { generate, exportFile, spectrum, evm, backoff, ccdf, ccdfLane, ccdfMerge, pool, dispose: () => pool.dispose() };
 }

@@ -25,6 +25,7 @@ import {
   type WorkerResponse,
 } from './protocol';
 import { runBackoffRequest } from './handlers/backoffHandler';
+import { runCcdfMergeRequest, runCcdfRequest } from './handlers/ccdfHandler';
 import { runEvmRequest } from './handlers/evmHandler';
 import { runExportRequest } from './handlers/exportHandler';
 import { runSpectrumRequest } from './handlers/spectrumHandler';
@@ -36,6 +37,8 @@ export interface EngineDispatchHost {
   schedule(task: () => void): void;
   /** Milliseconds from a monotonic clock (performance.now()). */
   now(): number;
+  /** Names this worker instance (a Monte-Carlo lane); set once at start-up. */
+  laneId?: string;
 }
 
 /** Returns the buffer behind `view` if the view spans all of it, else a copy's buffer, so it can be transferred alone. */
@@ -136,6 +139,8 @@ const handlers: { [K in Handled['type']]: Handler<Extract<Handled, { type: K }>>
   spectrum: runSpectrumRequest,
   evm: runEvmRequest,
   backoff: runBackoffRequest,
+  ccdf: runCcdfRequest,
+  'ccdf-merge': runCcdfMergeRequest,
 };
 
 function handle(request: Handled, host: EngineDispatchHost): void {

@@ -15,6 +15,7 @@ import type { GeneratedWaveform } from '../dsp/waveform/waveformGenerator';
 import type { WaveformPlan } from '../dsp/waveform/waveformPlan';
 import type { BackoffAnalysis } from '../dsp/backoff/backoffAnalysis';
 import type { ExportReport } from '../io/exportMetadata';
+import type { BlockRecord, CcdfReportPayload, CcdfRunSpec, HistogramSetPayload } from './ccdfTypes';
 import type { AmplifierPayload, EvmPayload, SpectrumPayload } from './measurementTypes';
 
 /** Bump when a message changes shape; a page and a worker from different builds then refuse each other. */
@@ -74,7 +75,35 @@ export interface BackoffRequest extends Envelope<'backoff'> {
   psatDbm?: number;
 }
 
-export type WorkerRequest = GenerateRequest | CancelRequest | ExportRequest | SpectrumRequest | EvmRequest | BackoffRequest;
+/**
+ * Monte-Carlo statistics of a configuration (src/dsp/montecarlo). Without `laneRunKey`: measure `blocks` (default all)
+ * with fresh counts and answer with the report (the interactive CCDF). With it: add the blocks to this worker's
+ * counts for that run (a lane) and answer with the block records and a snapshot of the lane's counts.
+ */
+export interface CcdfRequest extends Envelope<'ccdf'> {
+  config: unknown;
+  run: CcdfRunSpec;
+  blocks?: number[];
+  laneRunKey?: string;
+}
+
+/** Merges the lanes of a long run (their latest snapshots and all block records) into a report. */
+export interface CcdfMergeRequest extends Envelope<'ccdf-merge'> {
+  config: unknown;
+  run: CcdfRunSpec;
+  lanes: HistogramSetPayload[];
+  records: BlockRecord[];
+}
+
+export type WorkerRequest =
+  | GenerateRequest
+  | CancelRequest
+  | ExportRequest
+  | SpectrumRequest
+  | EvmRequest
+  | BackoffRequest
+  | CcdfRequest
+  | CcdfMergeRequest;
 export type WorkerRequestType = WorkerRequest['type'];
 
 // ---------------------------------------------------------------------------------------------
@@ -191,8 +220,27 @@ export interface BackoffResponse extends Envelope<'backoff-result'> {
   elapsedMs: number;
 }
 
+export interface CcdfResponse extends Envelope<'ccdf-result'> {
+  config: WaveformConfig;
+  /** Identifies the worker instance whose lane `lane` is (long runs). */
+  laneId: string;
+  records: BlockRecord[];
+  /** Long runs: the lane's counts so far. */
+  lane: HistogramSetPayload | null;
+  /** Interactive runs: the report of these blocks. */
+  result: CcdfReportPayload | null;
+  elapsedMs: number;
+}
+
+export interface CcdfMergedResponse extends Envelope<'ccdf-merged'> {
+  result: CcdfReportPayload;
+  elapsedMs: number;
+}
+
 export type WorkerResponse =
   | ReadyResponse
+  | CcdfResponse
+  | CcdfMergedResponse
   | GeneratedResponse
   | ExportedResponse
   | SpectrumResponse
@@ -212,7 +260,11 @@ export type ResponseFor<TRequest extends WorkerRequest> = TRequest extends Gener
         ? EvmResponse | ErrorResponse
         : TRequest extends BackoffRequest
           ? BackoffResponse | ErrorResponse
-          : never;
+          : TRequest extends CcdfRequest
+            ? CcdfResponse | ErrorResponse
+            : TRequest extends CcdfMergeRequest
+              ? CcdfMergedResponse | ErrorResponse
+              : never;
 
 // ---------------------------------------------------------------------------------------------
 // Guards (messages arrive as `unknown`)
@@ -221,8 +273,18 @@ function isEnvelope(value: unknown): value is { type: unknown; id: unknown; prot
   return typeof value === 'object' && value !== null && 'type' in value && 'id' in value && 'protocolVersion' in value;
 }
 
-const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel', 'export', 'spectrum', 'evm', 'backoff'];
-const responseTypes: readonly WorkerResponseType[] = ['ready', 'generated', 'exported', 'spectrum-result', 'evm-result', 'backoff-result', 'error'];
+const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel', 'export', 'spectrum', 'evm', 'backoff', 'ccdf', 'ccdf-merge'];
+const responseTypes: readonly WorkerResponseType[] = [
+  'ready',
+  'generated',
+  'exported',
+  'spectrum-result',
+  'evm-result',
+  'backoff-result',
+  'ccdf-result',
+  'ccdf-merged',
+  'error',
+];
 
 /** True when `value` looks like a request of a known type (its version is checked separately). */
 export function isWorkerRequest(value: unknown): value is WorkerRequest {

@@ -2,6 +2,7 @@ import { describe, expectTypeOf, it, expect } from 'vitest';
 import type { WaveformConfig } from '../../src/config/schema';
 import type { DspErrorCode } from '../../src/dsp/errors';
 import type { ExportReport } from '../../src/io/exportMetadata';
+import type { HistogramSetPayload } from '../../src/worker/ccdfTypes';
 import { RE_DATA, RE_EMPTY, RE_REFERENCE, type GeneratedWaveform } from '../../src/dsp/waveform/waveformGenerator';
 import {
   GRID_KIND,
@@ -11,6 +12,10 @@ import {
   waveformBufferKeys,
   type CancelRequest,
   type BackoffRequest,
+  type CcdfMergedResponse,
+  type CcdfMergeRequest,
+  type CcdfRequest,
+  type CcdfResponse,
   type BackoffResponse,
   type EvmRequest,
   type EvmResponse,
@@ -39,8 +44,12 @@ import {
 
 describe('protocol unions (compile time)', () => {
   it('discriminates requests and responses on type', () => {
-    expectTypeOf<WorkerRequestType>().toEqualTypeOf<'generate' | 'cancel' | 'export' | 'spectrum' | 'evm' | 'backoff'>();
-    expectTypeOf<WorkerResponseType>().toEqualTypeOf<'ready' | 'generated' | 'exported' | 'spectrum-result' | 'evm-result' | 'backoff-result' | 'error'>();
+    expectTypeOf<WorkerRequestType>().toEqualTypeOf<'generate' | 'cancel' | 'export' | 'spectrum' | 'evm' | 'backoff' | 'ccdf' | 'ccdf-merge'>();
+    expectTypeOf<WorkerResponseType>().toEqualTypeOf<'ready' | 'generated' | 'exported' | 'spectrum-result' | 'evm-result' | 'backoff-result' | 'ccdf-result' | 'ccdf-merged' | 'error'
+    >();
+    expectTypeOf<ResponseFor<CcdfRequest>>().toEqualTypeOf<CcdfResponse | ErrorResponse>();
+    expectTypeOf<ResponseFor<CcdfMergeRequest>>().toEqualTypeOf<CcdfMergedResponse | ErrorResponse>();
+    expectTypeOf<CcdfResponse['lane']>().toEqualTypeOf<HistogramSetPayload | null>();
     expectTypeOf<ResponseFor<BackoffRequest>>().toEqualTypeOf<BackoffResponse | ErrorResponse>();
     expectTypeOf<ResponseFor<SpectrumRequest>>().toEqualTypeOf<SpectrumResponse | ErrorResponse>();
     expectTypeOf<ResponseFor<EvmRequest>>().toEqualTypeOf<EvmResponse | ErrorResponse>();
