@@ -8,6 +8,8 @@ import { ThemeChoice } from './panels/ThemeChoice';
 import { WorkspaceBar } from './panels/WorkspaceBar';
 import { AmplifierPlot } from './plots/AmplifierPlot';
 import { BackoffPlot } from './plots/BackoffPlot';
+import { CcdfControls } from './plots/CcdfControls';
+import { CcdfPlot } from './plots/CcdfPlot';
 import { ConstellationPlot } from './plots/ConstellationPlot';
 import { PlotPanel } from './plots/PlotPanel';
 import { ReceiverPlot } from './plots/ReceiverPlot';
@@ -57,6 +59,10 @@ export function App() {
           </PlotPanel>
           <PlotPanel title="Resource grid" panelId="grid" exportId="resource-grid-plot">
             <ResourceGridPlot />
+          </PlotPanel>
+          <PlotPanel title="Power statistics (CCDF)" panelId="ccdf" exportId="ccdf-plot" size="wide">
+            <CcdfControls />
+            <CcdfPlot />
           </PlotPanel>
           <PlotPanel title="Spectrum and adjacent channels" panelId="spectrum" exportId="spectrum-plot" size="wide">
             <SpectrumPlot />

@@ -11,6 +11,8 @@ import { UpdateTimerContext } from './perf/UpdateTimerContext';
 import { createIndexedDbStore } from './persist/indexedDbStore';
 import { createWorkspaceArchive } from './persist/workspaceArchive';
 import { AppStoreProvider } from './state/AppStoreContext';
+import { CcdfRunContext } from './state/CcdfRunContext';
+import { connectCcdfRuns } from './state/ccdfRunController';
 import { EngineContext } from './state/EngineContext';
 import { connectEngine } from './state/engineController';
 import { connectScenarioMeasurements } from './state/scenarioController';
@@ -41,6 +43,8 @@ store.subscribe((state, previous) => {
 const updateTimer = createUpdateTimer(browserTimingApi());
 updateTimer.subscribe(({ durationMs }) => store.getState().setLastUpdateMs(durationMs));
 
+const ccdfRuns = connectCcdfRuns(store, client);
+
 const archive = createWorkspaceArchive(createIndexedDbStore('crestline-workspace'));
 
 async function start(): Promise<void> {
@@ -58,9 +62,11 @@ createRoot(rootElement).render(
   <StrictMode>
     <AppStoreProvider store={store}>
       <EngineContext.Provider value={client}>
-        <UpdateTimerContext.Provider value={updateTimer}>
-          <App />
-        </UpdateTimerContext.Provider>
+        <CcdfRunContext.Provider value={ccdfRuns}>
+          <UpdateTimerContext.Provider value={updateTimer}>
+            <App />
+          </UpdateTimerContext.Provider>
+        </CcdfRunContext.Provider>
       </EngineContext.Provider>
     </AppStoreProvider>
   </StrictMode>,

@@ -26,6 +26,30 @@ const worstAclr = (m: ScenarioMeasurement | undefined, prefix: (key: string) => 
 
 export const COMPARISON_COLUMNS: readonly ComparisonColumn[] = [
   {
+    id: 'ccdf-1e-4',
+    label: 'CCDF 1e-4',
+    unit: 'dB',
+    better: 'lower',
+    definition: 'Instantaneous power over the mean exceeded by 1e-4 of the samples (1024 random symbols at ≥ 4×).',
+    read: (m) => m?.ccdf?.report.ccdfDb['1e-4'] ?? null,
+  },
+  {
+    id: 'papr-1e-2',
+    label: 'PAPR 1e-2',
+    unit: 'dB',
+    better: 'lower',
+    definition: 'Symbol PAPR (peak over the run mean) exceeded by 1e-2 of the symbols.',
+    read: (m) => m?.ccdf?.report.paprRunMeanDb['1e-2'] ?? null,
+  },
+  {
+    id: 'cm',
+    label: 'CM',
+    unit: 'dB',
+    better: 'lower',
+    definition: 'Cubic metric, TS 25.101 §6.2.2 (unrounded).',
+    read: (m) => m?.ccdf?.report.cubicMetricDb ?? null,
+  },
+  {
     id: 'aclr-same',
     label: 'ACLR1',
     unit: 'dB',

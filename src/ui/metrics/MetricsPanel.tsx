@@ -1,5 +1,6 @@
 import { useId, useMemo } from 'react';
 import { useAppStore } from '../state/AppStoreContext';
+import { useCcdfResult } from '../state/useCcdfResult';
 import { buildMetricRows, type MetricRow } from './metricRows';
 
 function MetricLine({ row }: { row: MetricRow }) {
@@ -35,12 +36,23 @@ export function MetricsPanel() {
   const evm = useAppStore((state) => state.evm);
   const backoff = useAppStore((state) => state.backoff);
   const hasAmplifier = useAppStore((state) => state.submittedDraft?.amplifier !== undefined);
+  const ccdf = useCcdfResult();
+  const probabilities = useAppStore((state) => state.ccdfProbabilities);
   const rows = useMemo(
-    () => buildMetricRows({ spectrum: spectrum.data, evm: evm.data, backoff: backoff.data, hasAmplifier }),
-    [spectrum.data, evm.data, backoff.data, hasAmplifier],
+    () =>
+      buildMetricRows({
+        spectrum: spectrum.data,
+        evm: evm.data,
+        backoff: backoff.data,
+        hasAmplifier,
+        ccdf: ccdf.result,
+        probabilities,
+        ccdfSource: `${ccdf.note}, ${ccdf.result?.report.symbols.toLocaleString('en') ?? '–'} symbols`,
+      }),
+    [spectrum.data, evm.data, backoff.data, hasAmplifier, ccdf.result, ccdf.note, probabilities],
   );
   const groups = [...new Set(rows.map((r) => r.group))];
-  const busy = spectrum.status === 'running' || evm.status === 'running';
+  const busy = spectrum.status === 'running' || evm.status === 'running' || ccdf.result === null;
   return (
     <section className="panel metrics-panel" aria-labelledby="metrics-heading" aria-busy={busy}>
       <h2 id="metrics-heading">

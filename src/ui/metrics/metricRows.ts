@@ -2,7 +2,7 @@
  * The metrics summary: one row per figure with its unit, how it is defined and which standard it follows, built
  * from the engine's results (values are formatted, never recomputed). Pure, so it is tested without a browser.
  */
-import type { BackoffResult, EvmResult, SpectrumResult } from '../../worker/client';
+import type { BackoffResult, CcdfResult, EvmResult, SpectrumResult } from '../../worker/client';
 
 export type MetricStatus = 'pass' | 'fail' | null;
 
@@ -27,6 +27,11 @@ export interface MetricInputs {
   evm: EvmResult | null;
   backoff: BackoffResult | null;
   hasAmplifier: boolean;
+  ccdf?: CcdfResult | null;
+  /** Probability keys for the PAPR and CCDF rows. */
+  probabilities?: readonly string[];
+  /** Which run the statistics come from ("quick run", "long run"). */
+  ccdfSource?: string;
 }
 
 const fixed = (v: number | null | undefined, digits: number) => (v === null || v === undefined || !Number.isFinite(v) ? '–' : v.toFixed(digits));
@@ -128,7 +133,10 @@ function amplifierRows(spectrum: SpectrumResult | null): MetricRow[] {
 }
 
 export function buildMetricRows(inputs: MetricInputs): MetricRow[] {
-  return [...evmRows(inputs.evm), ...spectrumRows(inputs.spectrum), ...amplifierRows(inputs.spectrum), ...backoffRows(inputs.backoff, inputs.hasAmplifier)];
+  return [
+    ...envelopeRows(inputs.ccdf ?? null, inputs.probabilities ?? [], inputs.ccdfSource ?? 'quick run'),
+    ...evmRows(inputs.evm),
+    ...spectrumRows(inputs.spectrum), ...amplifierRows(inputs.spectrum), ...backoffRows(inputs.backoff, inputs.hasAmplifier)];
 }
 
 /** Rows for the back-off answer: required OBO with its uncertainty and what limits it, usable output, MPR context. */
@@ -174,5 +182,64 @@ export function backoffRows(backoff: BackoffResult | null, hasAmplifier: boolean
       group: 'Amplifier',
     });
   }
+  return rows;
+}
+
+/** Rows for the envelope: PAPR and power CCDF at the chosen probabilities (with 95 % intervals), cubic metric, crest factor. */
+export function envelopeRows(ccdf: CcdfResult | null, probabilities: readonly string[], source: string): MetricRow[] {
+  const r = ccdf?.report ?? null;
+  const ci = (interval: readonly [number | null, number | null] | null | undefined) =>
+    interval === null || interval === undefined || interval[0] === null || interval[1] === null ? '' : ` (95 %: ${interval[0].toFixed(2)}…${interval[1].toFixed(2)})`;
+  const rows: MetricRow[] = [];
+  for (const key of probabilities) {
+    const k = key as keyof NonNullable<typeof r>['paprRunMeanDb'];
+    rows.push({
+      id: `papr-${key}`,
+      label: `PAPR at ${key}`,
+      value: r === null ? '–' : r.paprRunMeanDb[k] === null ? 'n/a' : fixed(r.paprRunMeanDb[k], 2),
+      unit: 'dB',
+      definition: `Level exceeded by a fraction ${key} of OFDM symbols: ${r?.paprRunMeanDefinition ?? 'peak |x|² of each symbol over the mean power'}${r === null ? '' : ci(r.paprRunMeanCi95Db[k])}. "n/a": too few symbols for ten beyond that probability (${source}).`,
+      standard: 'common practice (van Nee & Prasad 2000, ch. 6); levels and Wilson 95 % intervals from the measurement engine',
+      status: null,
+      limit: null,
+      group: 'Envelope',
+    });
+  }
+  for (const key of probabilities) {
+    const k = key as keyof NonNullable<typeof r>['ccdfDb'];
+    rows.push({
+      id: `ccdf-${key}`,
+      label: `Power CCDF at ${key}`,
+      value: r === null ? '–' : r.ccdfDb[k] === null ? 'n/a' : fixed(r.ccdfDb[k], 2),
+      unit: 'dB',
+      definition: `Instantaneous power over the mean exceeded by a fraction ${key} of the samples: ${r?.ccdfDefinition ?? ''}${r === null ? '' : ci(r.ccdfCi95Db[k])} (${source}).`,
+      standard: 'common practice (CCDF of |x|², van Nee & Prasad 2000, ch. 6)',
+      status: null,
+      limit: null,
+      group: 'Envelope',
+    });
+  }
+  rows.push({
+    id: 'cm',
+    label: 'Cubic metric',
+    value: r === null ? '–' : fixed(r.cubicMetricDb, 2),
+    unit: 'dB',
+    definition: `${r?.cubicMetricDefinition ?? 'CM = (20·log10 rms(v_norm³) − 1.52 dB) / 1.56'}; raw ${r === null ? '–' : fixed(r.cubicMetricRawDb, 2)} dB.`,
+    standard: 'TS 25.101 §6.2.2 (unrounded, the LTE study form)',
+    status: null,
+    limit: null,
+    group: 'Envelope',
+  });
+  rows.push({
+    id: 'crest',
+    label: 'Crest factor (run)',
+    value: r === null ? '–' : fixed(r.crestFactorDb, 2),
+    unit: 'dB',
+    definition: `Largest |x|² of the whole Monte-Carlo run over its mean power; grows with the run length (${source}).`,
+    standard: 'common practice',
+    status: null,
+    limit: null,
+    group: 'Envelope',
+  });
   return rows;
 }

@@ -18,6 +18,13 @@ export interface EngineControllerOptions {
 
 const describe = (error: unknown) => (error instanceof Error ? error.message : String(error));
 
+/**
+ * The quick statistics run of every draft: one engine block of random symbols at ≥ 4× oversampling, single
+ * precision (the WebAssembly FFT when it has loaded). Enough for the power CCDF to ~1e-4 on large grids; the long
+ * run (ccdfRunController.ts) goes further.
+ */
+export const QUICK_CCDF = { symbols: 128, precision: 'f32' } as const;
+
 export function connectEngine(store: AppStore, client: EngineClient, options: EngineControllerOptions = {}): () => void {
   const current = (draft: ConfigDraft) => store.getState().submittedDraft === draft;
 
@@ -56,6 +63,15 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
       },
       (error: unknown) => {
         if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('evm', describe(error));
+      },
+    );
+    state.measurementStarted('ccdf');
+    client.ccdf(draft, QUICK_CCDF).then(
+      (result) => {
+        if (current(draft)) store.getState().measurementSucceeded('ccdf', result, seq);
+      },
+      (error: unknown) => {
+        if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('ccdf', describe(error));
       },
     );
     state.requestStarted();

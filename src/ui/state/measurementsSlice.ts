@@ -4,10 +4,10 @@
  * Each carries the sequence number of the draft it answers (for the update timer and to drop stale answers).
  */
 import type { StateCreator } from 'zustand';
-import type { BackoffResult, EvmResult, SpectrumResult } from '../../worker/client';
+import type { BackoffResult, CcdfResult, EvmResult, SpectrumResult } from '../../worker/client';
 import type { AppState } from './store';
 
-export type MeasurementKind = 'spectrum' | 'evm' | 'backoff';
+export type MeasurementKind = 'spectrum' | 'evm' | 'backoff' | 'ccdf';
 
 export interface MeasurementState<T> {
   data: T | null;
@@ -19,13 +19,14 @@ export interface MeasurementState<T> {
 
 const empty = <T>(): MeasurementState<T> => ({ data: null, seq: -1, status: 'idle', error: null });
 
-export type ScenarioMeasurementKind = 'spectrum' | 'backoff';
+export type ScenarioMeasurementKind = 'spectrum' | 'backoff' | 'ccdf';
 
 /** What has been measured for one pinned scenario; `key` is its configuration's JSON (a changed scenario starts afresh). */
 export interface ScenarioMeasurement {
   key: string;
   spectrum?: SpectrumResult;
   backoff?: BackoffResult;
+  ccdf?: CcdfResult;
   errors: Partial<Record<ScenarioMeasurementKind, string | undefined>>;
 }
 
@@ -33,6 +34,8 @@ export interface MeasurementsSlice {
   spectrum: MeasurementState<SpectrumResult>;
   evm: MeasurementState<EvmResult>;
   backoff: MeasurementState<BackoffResult>;
+  /** The quick statistics run of each draft (QUICK_CCDF symbols). */
+  ccdf: MeasurementState<CcdfResult>;
   /** Measurements of each pinned scenario (by scenario id), for the overlays and the comparison table. */
   scenarioMeasurements: Readonly<Record<string, ScenarioMeasurement>>;
   scenarioMeasured(id: string, key: string, kind: ScenarioMeasurementKind, data: unknown): void;
@@ -42,6 +45,7 @@ export interface MeasurementsSlice {
   measurementSucceeded(kind: 'spectrum', data: SpectrumResult, seq: number): void;
   measurementSucceeded(kind: 'evm', data: EvmResult, seq: number): void;
   measurementSucceeded(kind: 'backoff', data: BackoffResult, seq: number): void;
+  measurementSucceeded(kind: 'ccdf', data: CcdfResult, seq: number): void;
   measurementFailed(kind: MeasurementKind, message: string): void;
   /** Nothing to measure for draft `seq` (e.g. no amplifier for the back-off). */
   measurementCleared(kind: MeasurementKind, seq: number): void;
@@ -51,6 +55,7 @@ export const createMeasurementsSlice: StateCreator<AppState, [], [], Measurement
   spectrum: empty<SpectrumResult>(),
   evm: empty<EvmResult>(),
   backoff: empty<BackoffResult>(),
+  ccdf: empty<CcdfResult>(),
   scenarioMeasurements: {},
   scenarioMeasured: (id, key, kind, data) =>
     set((state) => {
@@ -67,7 +72,7 @@ export const createMeasurementsSlice: StateCreator<AppState, [], [], Measurement
   dropScenarioMeasurements: (keepIds) =>
     set((state) => ({ scenarioMeasurements: Object.fromEntries(Object.entries(state.scenarioMeasurements).filter(([id]) => keepIds.includes(id))) })),
   measurementStarted: (kind) => set((state) => ({ [kind]: { ...state[kind], status: 'running' } }) as Partial<AppState>),
-  measurementSucceeded: (kind: MeasurementKind, data: SpectrumResult | EvmResult | BackoffResult, seq: number) =>
+  measurementSucceeded: (kind: MeasurementKind, data: SpectrumResult | EvmResult | BackoffResult | CcdfResult, seq: number) =>
     set({ [kind]: { data, seq, status: 'ready', error: null } } as Partial<AppState>),
   measurementCleared: (kind, seq) => set({ [kind]: { data: null, seq, status: 'idle', error: null } } as Partial<AppState>),
   measurementFailed: (kind, message) => set((state) => ({ [kind]: { ...state[kind], status: 'failed', error: message } }) as Partial<AppState>),

@@ -9,7 +9,10 @@ import type { AppStore } from './store';
 
 export const scenarioKey = (scenario: Pick<SavedScenario, 'config'>) => JSON.stringify(scenario.config);
 
-const lanes = (id: string) => ({ spectrum: `scenario:${id}:spectrum`, backoff: `scenario:${id}:backoff` });
+const lanes = (id: string) => ({ spectrum: `scenario:${id}:spectrum`, backoff: `scenario:${id}:backoff`, ccdf: `scenario:${id}:ccdf` });
+
+/** Statistics of a pinned scenario: eight engine blocks (1024 symbols), enough for PAPR to 1e-2 and the CCDF to 1e-4. */
+export const SCENARIO_CCDF = { symbols: 1024, precision: 'f32' } as const;
 
 export function connectScenarioMeasurements(store: AppStore, client: EngineClient): () => void {
   const requested = new Map<string, string>(); // scenario id → key last requested
@@ -23,6 +26,10 @@ export function connectScenarioMeasurements(store: AppStore, client: EngineClien
     client.spectrum(scenario.config, { lane: lane.spectrum, priority: 'background' }).then(
       (result) => stillWanted() && store.getState().scenarioMeasured(scenario.id, key, 'spectrum', result),
       (error: unknown) => !isSuperseded(error) && stillWanted() && store.getState().scenarioMeasurementFailed(scenario.id, key, 'spectrum', String((error as Error).message ?? error)),
+    );
+    client.ccdf(scenario.config, SCENARIO_CCDF, { lane: lane.ccdf, priority: 'background' }).then(
+      (result) => stillWanted() && store.getState().scenarioMeasured(scenario.id, key, 'ccdf', result),
+      (error: unknown) => !isSuperseded(error) && stillWanted() && store.getState().scenarioMeasurementFailed(scenario.id, key, 'ccdf', String((error as Error).message ?? error)),
     );
     if (scenario.config.amplifier !== undefined) {
       client.backoff(scenario.config, { lane: lane.backoff, priority: 'background' }).then(
@@ -39,6 +46,7 @@ export function connectScenarioMeasurements(store: AppStore, client: EngineClien
         requested.delete(id);
         client.pool.cancelLane(lanes(id).spectrum);
         client.pool.cancelLane(lanes(id).backoff);
+        client.pool.cancelLane(lanes(id).ccdf);
       }
     }
     store.getState().dropScenarioMeasurements(ids);
