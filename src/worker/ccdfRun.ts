@@ -189,7 +189,10 @@ export function startCcdfRun(client: EngineClient, options: CcdfRunOptions, call
     }
   };
 
-  callbacks.onProgress?.(progress());
+  // Report the start after the caller has the handle (callbacks may refer to it).
+  queueMicrotask(() => {
+    if (!stopped) callbacks.onProgress?.(progress());
+  });
   pump();
   return {
     runKey,
