@@ -54,8 +54,8 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
     const state = store.getState();
     const seq = state.submittedSeq;
     options.onSubmit?.(seq);
-    // The EVM takes longest (three receiver passes): it goes first, so it runs on one worker while the waveform
-    // and then the spectrum run on the other.
+    // The EVM takes longest (three receiver passes): it goes first, so it runs on one worker while the waveform,
+    // the spectrum and the quick statistics run on the other (or on whichever is free first).
     state.measurementStarted('evm');
     client.evm(draft).then(
       (result) => {
@@ -63,15 +63,6 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
       },
       (error: unknown) => {
         if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('evm', describe(error));
-      },
-    );
-    state.measurementStarted('ccdf');
-    client.ccdf(draft, QUICK_CCDF).then(
-      (result) => {
-        if (current(draft)) store.getState().measurementSucceeded('ccdf', result, seq);
-      },
-      (error: unknown) => {
-        if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('ccdf', describe(error));
       },
     );
     state.requestStarted();
@@ -98,6 +89,15 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
       },
       (error: unknown) => {
         if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('spectrum', describe(error));
+      },
+    );
+    state.measurementStarted('ccdf');
+    client.ccdf(draft, QUICK_CCDF).then(
+      (result) => {
+        if (current(draft)) store.getState().measurementSucceeded('ccdf', result, seq);
+      },
+      (error: unknown) => {
+        if (!isSuperseded(error) && current(draft)) store.getState().measurementFailed('ccdf', describe(error));
       },
     );
     runBackoff(draft, seq);
