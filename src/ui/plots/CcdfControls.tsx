@@ -78,20 +78,21 @@ export function CcdfControls() {
           </button>
         )}
       </div>
-      {longRun.status !== 'idle' && (
-        <div className="run-progress" data-run-status={longRun.status}>
-          <progress max={1} value={p?.fraction ?? 0} aria-label="Long run progress" />
-          <span role="status" aria-live="polite">
-            {longRun.status === 'running' && p !== null
-              ? `${(100 * p.fraction).toFixed(1)} % · ${fmtInt(p.symbolsDone)} of ${fmtInt(p.symbolsTotal)} symbols · ${p.symbolsPerSecond === null ? '–' : fmtInt(p.symbolsPerSecond)} symbols/s · ${formatSeconds(p.secondsLeft)} left`
-              : longRun.status === 'done'
-                ? `Done: ${fmtInt(p?.symbolsTotal ?? 0)} symbols in ${formatSeconds(p?.elapsedSeconds ?? null)}${stale ? ' (for an earlier configuration)' : ''}`
-                : longRun.status === 'cancelled'
-                  ? `Cancelled after ${fmtInt(p?.symbolsDone ?? 0)} symbols; the plot keeps what was merged.`
-                  : `Failed: ${longRun.error ?? ''}`}
-          </span>
-        </div>
-      )}
+      {/* Always present (fixed height), so starting a run does not move the plot. */}
+      <div className="run-progress" data-run-status={longRun.status}>
+        <progress max={1} value={p?.fraction ?? 0} aria-label="Long run progress" style={longRun.status === 'idle' ? { visibility: 'hidden' } : undefined} />
+        <span role="status" aria-live="polite">
+          {longRun.status === 'idle'
+            ? 'Each edit runs a quick 128-symbol estimate; a long run reaches the small probabilities.'
+            : longRun.status === 'running' && p !== null
+            ? `${(100 * p.fraction).toFixed(1)} % · ${fmtInt(p.symbolsDone)} of ${fmtInt(p.symbolsTotal)} symbols · ${p.symbolsPerSecond === null ? '–' : fmtInt(p.symbolsPerSecond)} symbols/s · ${formatSeconds(p.secondsLeft)} left`
+            : longRun.status === 'done'
+              ? `Done: ${fmtInt(p?.symbolsTotal ?? 0)} symbols in ${formatSeconds(p?.elapsedSeconds ?? null)}${stale ? ' (for an earlier configuration)' : ''}`
+              : longRun.status === 'cancelled'
+                ? `Cancelled after ${fmtInt(p?.symbolsDone ?? 0)} symbols; the plot keeps what was merged.`
+                : `Failed: ${longRun.error ?? ''}`}
+        </span>
+      </div>
     </div>
   );
 }
