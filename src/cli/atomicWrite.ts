@@ -13,21 +13,30 @@ export function writeFilesAtomically(files: readonly { path: string; bytes: Uint
     for (const f of files) {
       const temp = temporaryPathFor(f.path);
       temps.push(temp);
-      const fd = openSync(temp, 'w');
-      try {
-        const data = typeof f.bytes === 'string' ? Buffer.from(f.bytes, 'utf8') : f.bytes;
-        let written = 0;
-        while (written < data.byteLength) written += writeSync(fd, data, written, data.byteLength - written);
-        fsyncSync(fd);
-      } finally {
-        closeSync(fd);
-      }
+      writeDurably(temp, f.bytes);
     }
     files.forEach((f, i) => renameSync(temps[i]!, f.path));
   } catch (err) {
     for (const t of temps) rmSync(t, { force: true });
     throw err;
   }
+}
+
+/** Writes `bytes` (UTF-8 for a string) to a new file at `path` and fsyncs it before closing. */
+function writeDurably(path: string, bytes: Uint8Array | string): void {
+  const fd = openSync(path, 'w');
+  try {
+    writeAll(fd, typeof bytes === 'string' ? Buffer.from(bytes, 'utf8') : bytes);
+    fsyncSync(fd);
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** writeSync until every byte is out (a single call may write fewer). */
+function writeAll(fd: number, bytes: Uint8Array): void {
+  let written = 0;
+  while (written < bytes.byteLength) written += writeSync(fd, bytes, written, bytes.byteLength - written);
 }
 
 /** Temporary name beside `finalPath`, unique to this process. */
@@ -64,8 +73,7 @@ export function openAtomicStream(finalPath: string): AtomicStreamWriter {
     tempPath,
     write(bytes) {
       if (fd === undefined) throw new Error(`${finalPath}: write after the file was closed.`);
-      let written = 0;
-      while (written < bytes.byteLength) written += writeSync(fd, bytes, written, bytes.byteLength - written);
+      writeAll(fd, bytes);
     },
     commit(companions) {
       if (fd === undefined) throw new Error(`${finalPath}: commit after the file was closed.`);
@@ -77,15 +85,7 @@ export function openAtomicStream(finalPath: string): AtomicStreamWriter {
         for (const c of companions) {
           const t = temporaryPathFor(c.path);
           temps.push(t);
-          const cfd = openSync(t, 'w');
-          try {
-            const data = typeof c.bytes === 'string' ? Buffer.from(c.bytes, 'utf8') : c.bytes;
-            let written = 0;
-            while (written < data.byteLength) written += writeSync(cfd, data, written, data.byteLength - written);
-            fsyncSync(cfd);
-          } finally {
-            closeSync(cfd);
-          }
+          writeDurably(t, c.bytes);
         }
         renameSync(tempPath, finalPath);
         dataRenamed = true;

@@ -26,11 +26,6 @@ export class DspError extends Error {
   }
 }
 
-/** True when `value` is a DspError (also after a structured clone lost the class, by duck typing on code). */
-export function isDspError(value: unknown): value is DspError {
-  return value instanceof DspError;
-}
-
 /** Throws LENGTH_MISMATCH unless `buffer.length === expected`. `what` names the buffer in the message. */
 export function assertLength(buffer: { length: number }, expected: number, what: string): void {
   if (buffer.length !== expected) {
@@ -40,4 +35,14 @@ export function assertLength(buffer: { length: number }, expected: number, what:
       { actual: buffer.length, expected },
     );
   }
+}
+
+/**
+ * Checks a sample-by-sample block's output buffer: LENGTH_MISMATCH unless it has `inIq.length` values ("`what`
+ * output has …"), INTERNAL when it is the input buffer itself (no aliasing unless a block documents it).
+ * @param what names the block in the messages, e.g. 'Amplifier'
+ */
+export function assertSeparateOutput(inIq: Float64Array, outIq: Float64Array, what: string): void {
+  assertLength(outIq, inIq.length, `${what} output`);
+  if (inIq === outIq) throw new DspError('INTERNAL', `${what} input and output must be different buffers.`);
 }

@@ -1,10 +1,9 @@
-import { readFileSync } from 'node:fs';
 import type { Command } from 'commander';
-import { DspError } from '../../dsp/errors';
 import { buildMeasureReport } from '../../dsp/montecarlo/measureReport';
 import { mergeShardFiles, parseShardFile, serializeShardFile } from '../../dsp/montecarlo/shardFile';
 import { writeFilesAtomically } from '../atomicWrite';
 import type { CliIo } from '../main';
+import { readTextFile } from '../readTextFile';
 import { formatMeasureTable } from './measureFormat';
 import { parseReportOptions, type ReportFlags } from './measureOptions';
 
@@ -31,12 +30,7 @@ export function registerMerge(program: Command, io: CliIo): void {
     .action((paths: string[], flags: MergeFlags) => {
       const reportOptions = parseReportOptions(flags);
       const files = paths.map((path) => {
-        let text: string;
-        try {
-          text = readFileSync(path, 'utf8');
-        } catch (err) {
-          throw new DspError('INVALID_FILE', `Cannot read shard file "${path}": ${(err as Error).message}`);
-        }
+        const text = readTextFile(path, 'shard file', 'INVALID_FILE');
         return { name: path, file: parseShardFile(text, path) };
       });
       const { context, stats } = mergeShardFiles(files);

@@ -1,4 +1,3 @@
-import { readFileSync } from 'node:fs';
 import type { AmplifierConfig } from '../../config/transmitterSchema';
 import type { AmplifierModel } from '../../dsp/amplifier/amplifierModel';
 import { createTableModel, tableSaturatedOutputDbm } from '../../dsp/amplifier/amAmTable';
@@ -8,6 +7,7 @@ import { createRappModel } from '../../dsp/amplifier/rapp';
 import { createSalehModel, SALEH_TWT_PRESET } from '../../dsp/amplifier/saleh';
 import { createSoftLimiterModel } from '../../dsp/amplifier/softLimiter';
 import { DspError } from '../../dsp/errors';
+import { readTextFile } from '../readTextFile';
 
 /** Command-line amplifier options of `crestline backoff`. */
 export interface PaOptions {
@@ -49,12 +49,7 @@ export function amplifierFromOptions(opts: PaOptions, configAmplifier: Amplifier
   }
   if (pa.startsWith('table:')) {
     const path = pa.slice('table:'.length);
-    let text: string;
-    try {
-      text = readFileSync(path, 'utf8');
-    } catch (err) {
-      throw new DspError('INVALID_FILE', `Cannot read the AM/AM table "${path}": ${(err as Error).message}`);
-    }
+    const text = readTextFile(path, 'the AM/AM table', 'INVALID_FILE');
     const unit = opts.tableUnit;
     if (unit !== undefined && unit !== 'dBm' && unit !== 'dBFS') {
       throw new DspError('INVALID_CONFIG', `--table-unit must be dBm or dBFS; got "${unit}".`, { field: '--table-unit' });

@@ -1,4 +1,4 @@
-import { assertLength, DspError } from '../errors';
+import { assertSeparateOutput, DspError } from '../errors';
 
 /**
  * The contract every power-amplifier model meets. Amplitudes are in the model's own units (the signal's
@@ -46,8 +46,7 @@ export function applyMemoryless(
   inputScale: number,
   outIq: Float64Array,
 ): Float64Array {
-  assertLength(outIq, inIq.length, 'Amplifier output');
-  if (inIq === outIq) throw new DspError('INTERNAL', 'Amplifier input and output must be different buffers.');
+  assertSeparateOutput(inIq, outIq, 'Amplifier');
   for (let i = 0; i < inIq.length; i += 2) {
     const re = inIq[i]! * inputScale;
     const im = inIq[i + 1]! * inputScale;

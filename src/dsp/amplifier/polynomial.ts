@@ -1,4 +1,4 @@
-import { assertLength, DspError } from '../errors';
+import { assertSeparateOutput, DspError } from '../errors';
 import { applyMemoryless, requirePositive, type AmplifierModel } from './amplifierModel';
 
 /** A complex coefficient as [re, im]. */
@@ -117,8 +117,7 @@ function applyMemoryPolynomial(
   inputScale: number,
   outIq: Float64Array,
 ): Float64Array {
-  assertLength(outIq, inIq.length, 'Amplifier output');
-  if (inIq === outIq) throw new DspError('INTERNAL', 'Amplifier input and output must be different buffers.');
+  assertSeparateOutput(inIq, outIq, 'Amplifier');
   const n = inIq.length / 2;
   for (let i = 0; i < n; i++) {
     let yRe = 0;

@@ -1,7 +1,7 @@
 import { createRng, deriveBlockSeed } from '../data/rng';
 import { assertLength, DspError } from '../errors';
 import { DELAY_PROFILES, normalisedTapPowers, type DelayProfileName } from './delayProfiles';
-import { designFractionalDelay, fractionalDelayResponse, type FractionalDelayFilter } from './fractionalDelay';
+import { applyFractionalDelay, designFractionalDelay, fractionalDelayResponse, type FractionalDelayFilter } from './fractionalDelay';
 import { createSosFading, fillSosFading, type SosFading } from './sumOfSinusoids';
 
 /**
@@ -75,19 +75,14 @@ export function applyMultipathChannel(
   const numSamples = inIq.length / 2;
   outIq.fill(0);
   const gains = new Float64Array(inIq.length);
+  const delayedIq = new Float64Array(inIq.length);
   channel.taps.forEach((tap, p) => {
     fillSosFading(tap.fading, startTimeS, channel.sampleRateHz, gains);
     const amp = Math.sqrt(tap.powerLinear);
-    const { taps, firstIndex } = tap.filter;
+    applyFractionalDelay(tap.filter, inIq, delayedIq);
     for (let n = 0; n < numSamples; n++) {
-      let re = 0;
-      let im = 0;
-      for (let i = 0; i < taps.length; i++) {
-        const j = n - firstIndex - i;
-        if (j < 0 || j >= numSamples) continue;
-        re += taps[i]! * inIq[2 * j]!;
-        im += taps[i]! * inIq[2 * j + 1]!;
-      }
+      const re = delayedIq[2 * n]!;
+      const im = delayedIq[2 * n + 1]!;
       const gRe = amp * gains[2 * n]!;
       const gIm = amp * gains[2 * n + 1]!;
       outIq[2 * n] = outIq[2 * n]! + re * gRe - im * gIm;

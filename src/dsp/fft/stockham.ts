@@ -99,6 +99,8 @@ export function createStockhamFft(size: number): StockhamFft {
   };
 }
 
+// NOTE: the radix stages repeat the same index arithmetic on purpose: one flat loop per radix, no shared helper
+// calls in the butterflies (this is the transform behind every non-power-of-two DFT).
 function stage2(x: Float64Array, y: Float64Array, m: number, s: number, tw: Float64Array): void {
   for (let j = 0; j < m; j++) {
     const w1r = tw[2 * j]!;

@@ -1,4 +1,4 @@
-import { assertLength, DspError } from '../errors';
+import { assertSeparateOutput, DspError } from '../errors';
 
 /** Half-length of the interpolation kernel, taps on each side. */
 export const CLOCK_OFFSET_HALF_TAPS = 32;
@@ -16,8 +16,7 @@ export function applySampleClockOffset(inIq: Float64Array, ppm: number, outIq: F
   if (!Number.isFinite(ppm) || Math.abs(ppm) > 1e4) {
     throw new DspError('INVALID_CONFIG', `impairments.sampleClockPpm must be within ±10000 ppm; got ${ppm}.`, { field: 'impairments.sampleClockPpm' });
   }
-  assertLength(outIq, inIq.length, 'Clock-offset output');
-  if (inIq === outIq) throw new DspError('INTERNAL', 'Clock-offset input and output must be different buffers.');
+  assertSeparateOutput(inIq, outIq, 'Clock-offset');
   const n = inIq.length / 2;
   const epsilon = ppm * 1e-6;
   const half = CLOCK_OFFSET_HALF_TAPS;

@@ -22,6 +22,7 @@ export interface PowerStats {
 export const POWER_HISTOGRAM_STEP_DB = 0.01;
 /** Histogram range of absolute power 10·log10|x|², dB (values outside are clamped to the end bins). */
 export const POWER_HISTOGRAM_MIN_DB = -300;
+/** Upper end of that range, dB. */
 export const POWER_HISTOGRAM_MAX_DB = 200;
 const NUM_BINS = Math.round((POWER_HISTOGRAM_MAX_DB - POWER_HISTOGRAM_MIN_DB) / POWER_HISTOGRAM_STEP_DB);
 

@@ -7,7 +7,7 @@ import { resolveNoiseLevel, type NoiseReference } from '../channel/noiseLevels';
 import { createRng, deriveBlockSeed } from '../data/rng';
 import { DspError } from '../errors';
 import { bitsPerSymbol } from '../modulation/constellations';
-import { countErrors } from '../receiver/errorCounting';
+import { countErrors, type ErrorCounts } from '../receiver/errorCounting';
 import { theoreticalBer } from '../receiver/errorRateTheory';
 import { receiveWaveform, type ChannelEstimationMode } from '../receiver/referenceReceiver';
 import type { EqualizerKind } from '../receiver/equalisation';
@@ -40,17 +40,11 @@ export interface LinkSimulationOptions {
   readonly windowAdvanceSamples?: number;
 }
 
-/** Totals of one Eb/N0 point over all drops. */
-export interface LinkPoint {
+/** Totals of one Eb/N0 point over all drops (the error counts of every drop added, then BER and SER). */
+export interface LinkPoint extends ErrorCounts {
   readonly ebN0Db: number;
   readonly esN0Db: number;
   readonly snrDb: number;
-  readonly bitErrors: number;
-  readonly numBits: number;
-  readonly symbolErrors: number;
-  readonly numSymbols: number;
-  readonly ber: number;
-  readonly ser: number;
   /** AWGN theory for the (single) modulation, when the channel is AWGN. */
   readonly theoryBer: number | undefined;
 }

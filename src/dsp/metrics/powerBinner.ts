@@ -41,6 +41,7 @@ f64Scratch[0] = 1;
 export const HIGH_WORD = f64Words[1] === 0x3ff00000 ? 1 : 0;
 /** Mantissa bits dropped from a double's high word and from a float, leaving 12 per cell. */
 export const F64_CELL_SHIFT = 8;
+/** The same for a float's 32-bit word (23 mantissa bits − 11 = 12 kept). */
 export const F32_CELL_SHIFT = 11;
 
 function f64Cell(value: number): number {

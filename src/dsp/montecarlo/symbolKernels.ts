@@ -97,7 +97,10 @@ export function accumulateSymbolF64(
   return out;
 }
 
-/** Float32Array twin of accumulateSymbolF64 (the sums are still accumulated in double precision). */
+/**
+ * Float32Array twin of accumulateSymbolF64 (the sums are still accumulated in double precision).
+ * NOTE: a deliberate copy of the f64 loop, so each stays monomorphic in its element type; keep the two in step.
+ */
 export function accumulateSymbolF32(
   powers: Float32Array,
   bits: Uint32Array,

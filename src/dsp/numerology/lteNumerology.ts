@@ -12,6 +12,7 @@ export interface LteBandwidthRow {
   readonly fftSize: number;
 }
 
+/** Channel bandwidth, N_RB (TS 36.101 Table 5.6-1) and the common-practice FFT size, narrowest first. */
 export const LTE_BANDWIDTHS: readonly LteBandwidthRow[] = [
   { bandwidthMHz: 1.4, numRb: 6, fftSize: 128 },
   { bandwidthMHz: 3, numRb: 15, fftSize: 256 },
@@ -21,10 +22,13 @@ export const LTE_BANDWIDTHS: readonly LteBandwidthRow[] = [
   { bandwidthMHz: 20, numRb: 100, fftSize: 2048 },
 ];
 
+/** Δf, Hz (Ts = 1/(Δf·2048), TS 36.211 §4). */
 export const LTE_SUBCARRIER_SPACING_HZ = 15000;
 /** Ts-units in one useful symbol, N = 2048 (TS 36.211 §4). */
 export const LTE_USEFUL_TS = 2048;
+/** Normal CP in Ts: 160 on l = 0 of each slot, 144 on l = 1…6 (TS 36.211 Tables 5.6-1, 6.12-1). */
 export const LTE_NORMAL_CP_TS = { first: 160, other: 144 } as const;
+/** Extended CP in Ts, every symbol (same tables). */
 export const LTE_EXTENDED_CP_TS = 512;
 
 /** The LTE row for a channel bandwidth, or undefined when 36.101 does not list it. */

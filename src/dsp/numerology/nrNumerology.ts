@@ -3,7 +3,9 @@
  * Tc = 1/(Δf_max·N_f), Δf_max = 480 kHz, N_f = 4096; κ = Ts/Tc = 64.
  * N_u = 2048κ·2^−μ; normal CP 144κ·2^−μ, plus 16κ on l = 0 and l = 7·2^μ of each subframe; extended CP 512κ·2^−μ (μ = 2 only).
  */
+/** 1/Tc = Δf_max·N_f, Tc per second (TS 38.211 §4.1). */
 export const NR_TC_PER_SECOND = 480000 * 4096;
+/** κ = Ts/Tc (TS 38.211 §4.1). */
 export const NR_KAPPA = 64;
 
 /** Maximum transmission bandwidth N_RB, FR1 (TS 38.101-1 Table 5.3.2-1), by SCS in kHz, then channel BW in MHz. */

@@ -1,3 +1,4 @@
+import { applyFrequencyOffset } from '../channel/impairments';
 import { DspError } from '../errors';
 import { bitsPerSymbol, type Modulation } from '../modulation/constellations';
 import { demapHard, demapMaxLogLlr } from '../modulation/demapper';
@@ -142,7 +143,8 @@ export function receiveWaveform(plan: WaveformPlan, rxIq: Float64Array, options:
   const work = createDemodulatorWorkspace(demod);
   const rxGridIq = new Float64Array(2 * k * numSymbols);
   const demodulateAll = (offsetHz: number): void => {
-    const signalIq = offsetHz === 0 ? rxIq : removeFrequencyOffset(rxIq, offsetHz, plan.sampleRateHz, timing);
+    // r[n]·e^{−j2πΔf(n − n0)/f_s}: the offset removed with its phase referenced to the waveform start n0 = timing.
+    const signalIq = offsetHz === 0 ? rxIq : applyFrequencyOffset(rxIq, -offsetHz, plan.sampleRateHz, new Float64Array(rxIq.length), -timing);
     for (let l = 0; l < numSymbols; l++) {
       demodulateSymbol(demod, signalIq, timing + layout[l]!.startSample, l, advance, work, rxGridIq.subarray(2 * k * l, 2 * k * (l + 1)));
     }
@@ -248,20 +250,6 @@ function buildPilots(plan: WaveformPlan, mode: ChannelEstimationMode, options: R
     for (let i = 0; i < pilotMask.length; i++) if (grid[2 * i] !== 0 || grid[2 * i + 1] !== 0) pilotMask[i] = 1;
   }
   return { pilotGridIq, pilotMask };
-}
-
-/** r[n]·e^{−j2πΔf(n − n0)/f_s}: removes a frequency offset with its phase referenced to the waveform start n0. */
-function removeFrequencyOffset(rxIq: Float64Array, offsetHz: number, sampleRateHz: number, startSample: number): Float64Array {
-  const out = new Float64Array(rxIq.length);
-  const step = (-2 * Math.PI * offsetHz) / sampleRateHz;
-  for (let n = 0; n < rxIq.length / 2; n++) {
-    const angle = step * (n - startSample);
-    const c = Math.cos(angle);
-    const s = Math.sin(angle);
-    out[2 * n] = rxIq[2 * n]! * c - rxIq[2 * n + 1]! * s;
-    out[2 * n + 1] = rxIq[2 * n]! * s + rxIq[2 * n + 1]! * c;
-  }
-  return out;
 }
 
 function obtainChannel(

@@ -1,4 +1,4 @@
-import { assertLength, DspError } from '../errors';
+import { assertSeparateOutput, DspError } from '../errors';
 import type { SymbolLayout } from '../waveform/waveformPlan';
 
 /**
@@ -22,8 +22,7 @@ export function applyTimeWindowing(
   continuationSign: 1 | -1,
   outIq: Float64Array,
 ): Float64Array {
-  assertLength(outIq, inIq.length, 'Windowing output');
-  if (inIq === outIq) throw new DspError('INTERNAL', 'Windowing input and output must be different buffers.');
+  assertSeparateOutput(inIq, outIq, 'Windowing');
   const w = rampLengthSamples;
   const shortestCp = Math.min(...layouts.map((l) => l.cpLengthSamples));
   if (!Number.isInteger(w) || w < 1 || w > shortestCp) {

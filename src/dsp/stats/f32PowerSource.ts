@@ -1,10 +1,8 @@
-import { assertLength } from '../errors';
 import { getF32Transform } from '../fft/f32Fft';
 import type { WaveformPlan } from '../waveform/waveformPlan';
 import { createPowerKernel } from './powerKernel';
-import { checkPowerRequest, expectedMeanPowerOf } from './powerRequest';
+import { expectedMeanPowerOf, openPowerRequest } from './powerRequest';
 import type { PowerSource } from './powerSource';
-import { createRandomBitReader } from './randomBits';
 import { createSubcarrierFiller } from './subcarrierFiller';
 
 /**
@@ -34,10 +32,7 @@ export function createF32PowerSource(plan: WaveformPlan): PowerSource | null {
     precisionUsed: 'f32',
     expectedMeanPower: expectedMeanPowerOf(plan),
     fillSymbolPowers(blockSeed, firstSymbol, numSymbols, outPower) {
-      checkPowerRequest(blockSeed, firstSymbol, numSymbols);
-      assertLength(outPower, numSymbols * n, `Power output for ${numSymbols} symbols of ${n} samples`);
-      const reader = createRandomBitReader(blockSeed);
-      reader.skip(firstSymbol * filler.bitsPerOfdmSymbol);
+      const reader = openPowerRequest(blockSeed, firstSymbol, numSymbols, outPower, n, filler.bitsPerOfdmSymbol);
       if (transform.owner !== owner) {
         transform.input().fill(0);
         transform.owner = owner;

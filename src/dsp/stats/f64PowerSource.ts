@@ -1,9 +1,7 @@
-import { assertLength } from '../errors';
 import { ifftRaw } from '../fft/fftPlan';
 import type { WaveformPlan } from '../waveform/waveformPlan';
-import { checkPowerRequest, expectedMeanPowerOf } from './powerRequest';
+import { expectedMeanPowerOf, openPowerRequest } from './powerRequest';
 import type { PowerSource } from './powerSource';
-import { createRandomBitReader } from './randomBits';
 import { createSubcarrierFiller } from './subcarrierFiller';
 
 /**
@@ -20,10 +18,7 @@ export function createF64PowerSource(plan: WaveformPlan): PowerSource {
     precisionUsed: 'f64',
     expectedMeanPower: expectedMeanPowerOf(plan),
     fillSymbolPowers(blockSeed, firstSymbol, numSymbols, outPower) {
-      checkPowerRequest(blockSeed, firstSymbol, numSymbols);
-      assertLength(outPower, numSymbols * n, `Power output for ${numSymbols} symbols of ${n} samples`);
-      const reader = createRandomBitReader(blockSeed);
-      reader.skip(firstSymbol * filler.bitsPerOfdmSymbol);
+      const reader = openPowerRequest(blockSeed, firstSymbol, numSymbols, outPower, n, filler.bitsPerOfdmSymbol);
       for (let s = 0; s < numSymbols; s++) {
         filler.fill64(reader, firstSymbol + s, freqIq);
         ifftRaw(plan.ofdm.fft, freqIq, timeIq);

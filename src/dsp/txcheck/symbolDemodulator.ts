@@ -17,6 +17,10 @@ export interface SymbolDemodulator {
   demodulate(waveformIq: Float64Array, layout: SymbolLayout, timingOffsetSamples: number, outRowIq: Float64Array): Float64Array;
 }
 
+/**
+ * Builds the known-timing demodulator of a plan (its FFT plan and scratch buffers, reused for every symbol).
+ * @param plan the waveform plan the recording was generated from
+ */
 export function createSymbolDemodulator(plan: WaveformPlan): SymbolDemodulator {
   const demodPlan = createOfdmDemodulatorPlan(plan);
   const work = createDemodulatorWorkspace(demodPlan);

@@ -29,6 +29,12 @@ export interface OfdmPlan {
   readonly symbolPhaseRad: Float64Array;
 }
 
+/**
+ * Precomputes the synthesis of `numerology` at `oversampling`: IFFT size N·os, CP lengths at the output rate,
+ * bin of each grid subcarrier, the LTE uplink ramps and the NR §5.4 phases (formulas on OfdmPlan above).
+ * @param oversampling whole factor os ≥ 1 (validated by the configuration schema)
+ * @param carrierFrequencyHz f0 for the NR upconversion phase (TS 38.211 §5.4); none applied when omitted
+ */
 export function createOfdmPlan(numerology: Numerology, oversampling: number, carrierFrequencyHz?: number): OfdmPlan {
   const ifftSize = numerology.fftSize * oversampling;
   const cpLengthsSamples = numerology.cpPatternSamples.map((c) => c * oversampling);
@@ -75,6 +81,7 @@ export interface OfdmWorkspace {
   readonly timeIq: Float64Array;
 }
 
+/** Allocates the scratch buffers of `ofdmModulateSymbol` for `plan` (2·ifftSize values each). */
 export function createOfdmWorkspace(plan: OfdmPlan): OfdmWorkspace {
   return { freqIq: new Float64Array(2 * plan.ifftSize), timeIq: new Float64Array(2 * plan.ifftSize) };
 }

@@ -7,27 +7,7 @@
 /** LTE uplink SC-FDMA, TS 36.211 §5.6: s(t) = Σ_{k=−K/2}^{K/2−1} a_{k+K/2} e^{j2π(k+1/2)Δf(t − N_CP·Ts)}. */
 export function lteUplinkSymbol(gridRowIq: Float64Array, fftSize: number, cpBase: number, os: number): Float64Array {
   const numSc = gridRowIq.length / 2;
-  const nOs = fftSize * os;
-  const len = cpBase * os + nOs;
-  const out = new Float64Array(2 * len);
-  for (let n = 0; n < len; n++) {
-    let re = 0;
-    let im = 0;
-    for (let i = 0; i < numSc; i++) {
-      const k = i - numSc / 2;
-      // angle = 2π(2k+1)(n − N_cp·os) / (2·N·os)
-      const den = 2 * nOs;
-      const num = ((((2 * k + 1) * (n - cpBase * os)) % den) + den) % den;
-      const angle = (2 * Math.PI * num) / den;
-      const c = Math.cos(angle);
-      const s = Math.sin(angle);
-      re += gridRowIq[2 * i]! * c - gridRowIq[2 * i + 1]! * s;
-      im += gridRowIq[2 * i]! * s + gridRowIq[2 * i + 1]! * c;
-    }
-    out[2 * n] = re;
-    out[2 * n + 1] = im;
-  }
-  return out;
+  return subcarrierSum(gridRowIq, fftSize, cpBase, os, (i) => 2 * (i - numSc / 2) + 1);
 }
 
 /**
@@ -42,17 +22,35 @@ export function integerSubcarrierSymbol(
   dcNull: boolean,
 ): Float64Array {
   const numSc = gridRowIq.length / 2;
+  return subcarrierSum(gridRowIq, fftSize, cpBase, os, (i) => {
+    const k = i - numSc / 2;
+    return 2 * (dcNull && k >= 0 ? k + 1 : k);
+  });
+}
+
+/**
+ * s[n] = Σ_i a_i e^{j2π(k_i/2)(n − N_cp·os)/(N·os)} for n = 0 … (N_cp + N)·os − 1, where `twiceFrequencyOf(i)`
+ * gives the whole number 2k_i (k_i in subcarriers, so half subcarriers are exact too). The angle is reduced
+ * mod 2·N·os in integers before the trigonometry.
+ */
+function subcarrierSum(
+  gridRowIq: Float64Array,
+  fftSize: number,
+  cpBase: number,
+  os: number,
+  twiceFrequencyOf: (i: number) => number,
+): Float64Array {
+  const numSc = gridRowIq.length / 2;
   const nOs = fftSize * os;
   const len = cpBase * os + nOs;
+  const den = 2 * nOs;
   const out = new Float64Array(2 * len);
   for (let n = 0; n < len; n++) {
     let re = 0;
     let im = 0;
     for (let i = 0; i < numSc; i++) {
-      let k = i - numSc / 2;
-      if (dcNull && k >= 0) k += 1;
-      const num = (((k * (n - cpBase * os)) % nOs) + nOs) % nOs;
-      const angle = (2 * Math.PI * num) / nOs;
+      const num = (((twiceFrequencyOf(i) * (n - cpBase * os)) % den) + den) % den;
+      const angle = (2 * Math.PI * num) / den;
       const c = Math.cos(angle);
       const s = Math.sin(angle);
       re += gridRowIq[2 * i]! * c - gridRowIq[2 * i + 1]! * s;
