@@ -24,7 +24,7 @@ test('pins two scenarios, overlays and tabulates them, and keeps them across a r
 
   // Both in the spectrum overlay and in the table, the first pinned one being the baseline.
   const spectrum = page.getByTestId('spectrum-plot');
-  await expect.poll(() => traceNames(spectrum), { timeout: 20_000 }).toEqual(expect.arrayContaining(['Bench 64QAM', 'Bench 64QAM, 25 RB']));
+  await expect.poll(() => traceNames(spectrum), { timeout: 20_000 }).toEqual(expect.arrayContaining(['Bench 64QAM', 'Bench 64QAM, 25 RB (current), transmitted']));
   const table = page.locator('[data-panel="comparison"]');
   await expect(table.locator('tbody tr')).toHaveCount(2);
   await expect(table.locator('tbody tr').first()).toContainText('baseline');

@@ -5,7 +5,7 @@ import { metricValue, openSection, renderCount, shootPanel, traceNames, waitForP
 // edits reach the plots and measurements, bad values stop at their field, and the page keeps to its own origin and a
 // strict Content-Security-Policy. Screenshots of every panel are saved as artefacts.
 
-const PANELS = ['time', 'constellation', 'grid', 'spectrum', 'amplifier', 'receiver', 'backoff', 'comparison'] as const;
+const PANELS = ['time', 'constellation', 'grid', 'ccdf', 'spectrum', 'amplifier', 'receiver', 'backoff', 'comparison'] as const;
 
 test('opens the demo: every panel draws from the workers, no console errors, no foreign requests, strict CSP', async ({ page, baseURL }, testInfo) => {
   const watch = watchPage(page, baseURL);
@@ -42,7 +42,7 @@ test('opens the demo: every panel draws from the workers, no console errors, no 
   const backoffPlot = page.getByTestId('backoff-plot');
   await waitForPlot(backoffPlot);
   await expect.poll(() => traceNames(backoffPlot), { timeout: 30_000 }).toEqual(
-    expect.arrayContaining(['Saltway uplink, OFDM (comparison): EVM', 'current: EVM']),
+    expect.arrayContaining(['Saltway uplink, OFDM (comparison): EVM', 'Saltway uplink, DFT-s-OFDM (current): EVM']),
   );
   await expect(metricValue(page, 'required-obo')).toHaveText(/^\d+\.\d\d/, { timeout: 30_000 });
   // DFT-s-OFDM needs less back-off than OFDM (the demo's point): the table shows a negative difference.

@@ -56,6 +56,8 @@ export interface SpectrumFigureInput {
   generated: SpectrumData | null;
   overlays: readonly SpectrumOverlay[];
   label: string;
+  /** Colour of the configuration being edited (default the text colour). */
+  colour?: string;
 }
 
 const fmtDb = (v: number) => (Number.isFinite(v) ? v.toFixed(1) : '∞');
@@ -78,7 +80,7 @@ export function buildSpectrumFigure(input: SpectrumFigureInput, theme: PlotTheme
   const data: Data[] = [];
   for (const overlay of input.overlays) data.push(line(overlay.name, overlay.spectrum, overlay.colour, 1.1, 'dot'));
   if (input.generated !== null) data.push(line('as generated', input.generated, theme.boundary, 1));
-  data.push(line(input.label, primary, theme.text, 1.6));
+  data.push(line(input.label, primary, input.colour ?? theme.text, 1.6));
 
   const shapes: Shape[] = [];
   const annotations: Annotation[] = [];

@@ -16,7 +16,10 @@ export function BackoffPlot() {
     const series: BackoffSeries[] = pinned.flatMap((p) =>
       p.measurement?.backoff === undefined || p.sameAsCurrent ? [] : [{ name: p.name, colour: p.colour, analysis: p.measurement.backoff.analysis, current: false }],
     );
-    if (backoff.data !== null) series.push({ name: 'current', colour: theme.text, analysis: backoff.data.analysis, current: true });
+    const same = pinned.find((p) => p.sameAsCurrent);
+    if (backoff.data !== null) {
+      series.push({ name: same === undefined ? 'current' : `${same.name} (current)`, colour: same?.colour ?? theme.text, analysis: backoff.data.analysis, current: true });
+    }
     return series.length === 0 ? null : buildBackoffFigure(series, theme);
   }, [backoff.data, pinned, scheme]);
   return (

@@ -14,7 +14,7 @@ export function SpectrumPlot() {
     () =>
       pinned.flatMap((p) => {
         const s = p.measurement?.spectrum;
-        return s === undefined ? [] : [{ name: p.name, colour: p.colour, spectrum: s.transmitted ?? s.waveform }];
+        return s === undefined || p.sameAsCurrent ? [] : [{ name: p.name, colour: p.colour, spectrum: s.transmitted ?? s.waveform }];
       }),
     [pinned],
   );
@@ -22,12 +22,14 @@ export function SpectrumPlot() {
     const data = spectrum.data;
     if (data === null) return null;
     const theme = plotThemes[scheme];
+    const same = pinned.find((p) => p.sameAsCurrent);
     return buildSpectrumFigure(
       {
         primary: data.transmitted ?? data.waveform,
         generated: data.transmitted === null ? null : data.waveform,
         overlays,
-        label: data.transmitted === null ? 'current' : 'current, transmitted',
+        label: `${same === undefined ? 'current' : `${same.name} (current)`}${data.transmitted === null ? '' : ', transmitted'}`,
+        colour: same?.colour ?? theme.text,
       },
       theme,
     );
