@@ -27,6 +27,9 @@ export default defineConfig({
   use: {
     baseURL,
     headless: true,
+    // A desktop bench screen: configuration, plots and measurements side by side.
+    viewport: { width: 1600, height: 1000 },
+    acceptDownloads: true,
     launchOptions: { executablePath: '/usr/bin/chromium', args: chromiumArgs },
     trace: 'retain-on-failure',
   },

@@ -1,35 +1,35 @@
 /**
- * Promise API over the engine worker, for the page (src/ui) and later a worker pool.
+ * Promise API over the engine's worker pool (pool.ts), for the page (src/ui).
  *
  * - `generate(config)` resolves with the validated configuration and the waveform (EngineWaveform:
  *   GeneratedWaveform with a plan summary), its typed arrays viewed again over the transferred buffers.
- * - The newest request wins: a new `generate` settles the previous one with SupersededError
- *   (callers ignore it) and tells the worker to drop it if it has not started.
+ * - The newest request of each kind wins: a new `generate` settles the previous one with
+ *   SupersededError (callers ignore it); the pool never sends a request that is already stale.
  * - Engine failures reject with a DspError rebuilt from `{type: "error", code, message}`:
- *   a class does not survive structured cloning, so it is rebuilt here.
- * - A worker that crashes is terminated and replaced; pending requests reject with an INTERNAL
+ *   a class does not survive structured cloning, so it is rebuilt in the pool.
+ * - A worker that crashes is terminated and replaced; its request rejects with an INTERNAL
  *   DspError that says so, and `onRestart` reports it to the page.
  */
 import type { WaveformConfig } from '../config/schema';
-import { DspError } from '../dsp/errors';
+import type { BackoffAnalysis } from '../dsp/backoff/backoffAnalysis';
+import type { ExportReport } from '../io/exportMetadata';
+import type { BlockRecord, CcdfReportPayload, CcdfRunSpec, CurvePayload, HistogramSetPayload } from './ccdfTypes';
+import type { AmplifierPayload, EvmPayload, SpectrumPayload } from './measurementTypes';
+import { waveformBufferKeys, waveformBufferViews, type EngineWaveform, type GeneratedResponse } from './protocol';
 import {
-  isWorkerResponse,
-  PROTOCOL_VERSION,
-  waveformBufferKeys,
-  waveformBufferViews,
-  type EngineWaveform,
-  type GeneratedResponse,
-  type WorkerRequest,
-} from './protocol';
+  createWorkerPool,
+  isSuperseded,
+  SupersededError,
+  type SuccessResponse,
+  type WorkerLike,
+  type WorkerPool,
+  type WorkerRestartNotice,
+} from './pool';
 
-/** The part of a Worker the client uses (a test passes a fake). */
-export interface WorkerLike {
-  postMessage(message: WorkerRequest, transfer: Transferable[]): void;
-  terminate(): void;
-  onmessage: ((event: MessageEvent) => void) | null;
-  onerror: ((event: ErrorEvent) => void) | null;
-  onmessageerror: ((event: MessageEvent) => void) | null;
-}
+export { isSuperseded, SupersededError, type WorkerLike };
+
+/** Workers in the page's pool: the two cores of the machines this runs on (interactive plots and Monte-Carlo blocks share them). */
+export const DEFAULT_POOL_SIZE = 2;
 
 export interface EngineResult {
   requestId: number;
@@ -40,37 +40,115 @@ export interface EngineResult {
   elapsedMs: number;
 }
 
-export interface EngineRestartNotice {
-  /** What the browser said about the crash. */
-  reason: string;
-  /** Requests that were in flight and have been rejected. */
-  failedRequestIds: number[];
-  /** Crashes so far in this client. */
-  restartCount: number;
-}
+export type EngineRestartNotice = WorkerRestartNotice;
 
 export interface EngineClientOptions {
   /** Defaults to the module worker in engine.worker.ts. */
   createWorker?: () => WorkerLike;
   onRestart?: (notice: EngineRestartNotice) => void;
+  /** Workers in the pool (default DEFAULT_POOL_SIZE). */
+  poolSize?: number;
+}
+
+/** An IQ file built by the worker (src/io exportToMemory): the data, its metadata and the report. */
+export interface ExportedFiles {
+  data: Uint8Array;
+  metaText: string;
+  dataSuffix: string;
+  metaSuffix: string;
+  sha512Hex: string;
+  report: ExportReport;
+  elapsedMs: number;
+}
+
+/** A spectrum payload with its arrays viewed again. */
+export type SpectrumData = SpectrumPayload<Float64Array>;
+export type AmplifierData = AmplifierPayload<Float64Array>;
+export type EvmData = EvmPayload<Float64Array>;
+
+export interface SpectrumResult {
+  config: WaveformConfig;
+  waveform: SpectrumData;
+  transmitted: SpectrumData | null;
+  amplifier: AmplifierData | null;
+  elapsedMs: number;
+}
+
+export interface BackoffResult {
+  config: WaveformConfig;
+  analysis: BackoffAnalysis;
+  elapsedMs: number;
+}
+
+export interface EvmResult {
+  config: WaveformConfig;
+  evm: EvmData;
+  elapsedMs: number;
+}
+
+function viewSpectrum(p: SpectrumPayload): SpectrumData {
+  return { ...p, frequenciesHz: new Float64Array(p.frequenciesHz), psdPerHz: new Float64Array(p.psdPerHz) };
+}
+
+function viewAmplifier(p: AmplifierPayload): AmplifierData {
+  return {
+    ...p,
+    inputDbRelSat: new Float64Array(p.inputDbRelSat),
+    outputDbRelSat: new Float64Array(p.outputDbRelSat),
+    gainCompressionDb: new Float64Array(p.gainCompressionDb),
+    phaseDeg: new Float64Array(p.phaseDeg),
+  };
+}
+
+/** A statistics report with its curves viewed as Float64Arrays. */
+export type CcdfResult = CcdfReportPayload<Float64Array>;
+
+/** One lane task of a long run: the blocks it measured and the lane's counts so far (kept as buffers for the merge). */
+export interface CcdfLaneResult {
+  laneId: string;
+  records: BlockRecord[];
+  lane: HistogramSetPayload;
+  elapsedMs: number;
+}
+
+function viewCurve(c: CurvePayload): CurvePayload<Float64Array> {
+  return { thresholdDb: new Float64Array(c.thresholdDb), probability: new Float64Array(c.probability) };
+}
+
+export function viewCcdfResult(p: CcdfReportPayload): CcdfResult {
+  return {
+    ...p,
+    curves: { power: viewCurve(p.curves.power), paprRunMean: viewCurve(p.curves.paprRunMean), paprSymbolMean: viewCurve(p.curves.paprSymbolMean) },
+    theory: { power: viewCurve(p.theory.power), paprNyquist: viewCurve(p.theory.paprNyquist), paprOversampled: viewCurve(p.theory.paprOversampled) },
+  };
+}
+
+/** Lane and priority of each kind of request (newest wins within a lane). */
+export interface RequestRouting {
+  lane?: string;
+  priority?: 'interactive' | 'background';
 }
 
 export interface EngineClient {
   generate(config: unknown): Promise<EngineResult>;
-  /** Terminates the worker; pending requests settle with SupersededError. */
+  /** Builds an export (newest wins: a new export supersedes one still running). */
+  exportFile(config: unknown, options: unknown): Promise<ExportedFiles>;
+  /** Spectrum, ACLR, OBW (and after the transmitter chain, with amplifier curves). Default lane "spectrum". */
+  spectrum(config: unknown, routing?: RequestRouting): Promise<SpectrumResult>;
+  /** EVM of the transmitted waveform. Default lane "evm". */
+  evm(config: unknown, routing?: RequestRouting): Promise<EvmResult>;
+  /** Back-off sweep and solver with the configuration's amplifier. Default lane "backoff", background priority. */
+  backoff(config: unknown, routing?: RequestRouting, psatDbm?: number): Promise<BackoffResult>;
+  /** Power CCDF, PAPR and cubic metric of a short Monte-Carlo run, in one request. Default lane "ccdf". */
+  ccdf(config: unknown, run: CcdfRunSpec, routing?: RequestRouting): Promise<CcdfResult>;
+  /** Long runs (ccdfRun.ts): measure `blocks` into a worker's lane for `laneRunKey`. */
+  ccdfLane(config: unknown, run: CcdfRunSpec, blocks: number[], laneRunKey: string, routing: RequestRouting): Promise<CcdfLaneResult>;
+  /** Long runs: merge the lanes' latest counts and all block records into a report. */
+  ccdfMerge(config: unknown, run: CcdfRunSpec, lanes: HistogramSetPayload[], records: BlockRecord[], routing: RequestRouting): Promise<CcdfResult>;
+  /** The pool behind the client, for long runs that spread blocks over the workers (ccdfRun.ts). */
+  readonly pool: WorkerPool;
+  /** Terminates the workers; pending requests settle with SupersededError. */
   dispose(): void;
-}
-
-/** A request overtaken by a newer one (or by dispose); not a failure to show. */
-export class SupersededError extends Error {
-  override readonly name = 'SupersededError';
-  constructor(readonly requestId: number) {
-    super(`Engine request ${requestId} was superseded by a newer request.`);
-  }
-}
-
-export function isSuperseded(error: unknown): error is SupersededError {
-  return error instanceof SupersededError;
 }
 
 function createModuleWorker(): WorkerLike {
@@ -87,118 +165,94 @@ export function rebuildWaveform(response: GeneratedResponse): EngineWaveform {
   return { ...response.meta, ...views } as EngineWaveform;
 }
 
-interface Pending {
-  resolve(result: EngineResult): void;
-  reject(error: unknown): void;
+/** Narrows a pool answer to the type a request expects (a mismatch is a bug in the worker). */
+export function expectResponse<TType extends SuccessResponse['type']>(
+  response: SuccessResponse,
+  type: TType,
+): Extract<SuccessResponse, { type: TType }> {
+  if (response.type !== type) throw new Error(`The engine answered "${response.type}" where "${type}" was expected.`);
+  return response as Extract<SuccessResponse, { type: TType }>;
 }
 
 export function createEngineClient(options: EngineClientOptions = {}): EngineClient {
-  const createWorker = options.createWorker ?? createModuleWorker;
-  const pending = new Map<number, Pending>();
-  let worker: WorkerLike | null = null;
-  let workerReady = false;
-  let nextId = 1;
-  let newestGenerateId = 0;
-  let restartCount = 0;
+  const pool = createWorkerPool({
+    size: options.poolSize ?? DEFAULT_POOL_SIZE,
+    createWorker: options.createWorker ?? createModuleWorker,
+    ...(options.onRestart !== undefined ? { onRestart: options.onRestart } : {}),
+  });
 
-  const rejectAll = (makeError: (id: number) => unknown): number[] => {
-    const ids = [...pending.keys()];
-    for (const id of ids) {
-      pending.get(id)?.reject(makeError(id));
-      pending.delete(id);
-    }
-    return ids;
+  const generate = async (config: unknown): Promise<EngineResult> => {
+    const { result } = pool.run({ type: 'generate', config }, { lane: 'generate', priority: 'interactive' });
+    const response = expectResponse(await result, 'generated');
+    return { requestId: response.id, config: response.config, waveform: rebuildWaveform(response), elapsedMs: response.elapsedMs };
   };
 
-  const settle = (data: unknown): void => {
-    if (!isWorkerResponse(data)) {
-      rejectAll(() => new DspError('INTERNAL', 'The engine worker sent a message the page does not understand.'));
-      return;
-    }
-    if (data.protocolVersion !== PROTOCOL_VERSION) {
-      const message = `The engine worker speaks protocol v${String(data.protocolVersion)} but the page speaks v${PROTOCOL_VERSION}; reload the page.`;
-      rejectAll(() => new DspError('INTERNAL', message));
-      return;
-    }
-    if (data.type === 'ready') {
-      workerReady = true;
-      return;
-    }
-    const entry = pending.get(data.id);
-    if (entry === undefined) return; // superseded: already settled
-    pending.delete(data.id);
-    if (data.type === 'error') {
-      entry.reject(new DspError(data.code, data.message, data.details));
-      return;
-    }
-    entry.resolve({ requestId: data.id, config: data.config, waveform: rebuildWaveform(data), elapsedMs: data.elapsedMs });
-  };
-
-  const handleCrash = (reason: string): void => {
-    const loadedBeforeCrash = workerReady;
-    worker?.terminate();
-    worker = null;
-    workerReady = false;
-    restartCount += 1;
-    const failedRequestIds = rejectAll(
-      (id) =>
-        new DspError(
-          'INTERNAL',
-          `The engine worker crashed (${reason}) while working on request ${id}. A fresh worker has been started; run the request again.`,
-        ),
-    );
-    // A worker that crashed before it was ready (e.g. its script failed to load) would crash again at once:
-    // start the next one only when a request needs it.
-    if (loadedBeforeCrash) ensureWorker();
-    options.onRestart?.({ reason, failedRequestIds, restartCount });
-  };
-
-  function ensureWorker(): WorkerLike {
-    if (worker !== null) return worker;
-    const created = createWorker();
-    created.onmessage = (event) => settle(event.data);
-    created.onerror = (event) => {
-      event.preventDefault?.();
-      handleCrash(event.message || 'the worker script failed or threw outside a request');
+  const exportFile = async (config: unknown, options: unknown): Promise<ExportedFiles> => {
+    const { result } = pool.run({ type: 'export', config, options }, { lane: 'export', priority: 'interactive' });
+    const r = expectResponse(await result, 'exported');
+    return {
+      data: new Uint8Array(r.data),
+      metaText: r.metaText,
+      dataSuffix: r.dataSuffix,
+      metaSuffix: r.metaSuffix,
+      sha512Hex: r.sha512Hex,
+      report: r.report,
+      elapsedMs: r.elapsedMs,
     };
-    created.onmessageerror = () =>
-      rejectAll(() => new DspError('INTERNAL', 'A message from the engine worker could not be read (structured clone failed).'));
-    worker = created;
-    return created;
-  }
-
-  const generate = (config: unknown): Promise<EngineResult> => {
-    const target = ensureWorker();
-    const previous = pending.get(newestGenerateId);
-    if (previous !== undefined) {
-      pending.delete(newestGenerateId);
-      previous.reject(new SupersededError(newestGenerateId));
-      target.postMessage({ type: 'cancel', id: nextId++, protocolVersion: PROTOCOL_VERSION, targetId: newestGenerateId }, []);
-    }
-    const id = nextId++;
-    newestGenerateId = id;
-    return new Promise<EngineResult>((resolve, reject) => {
-      pending.set(id, { resolve, reject });
-      try {
-        target.postMessage({ type: 'generate', id, protocolVersion: PROTOCOL_VERSION, config }, []);
-      } catch (error) {
-        pending.delete(id);
-        const reason = error instanceof Error ? error.message : String(error);
-        reject(
-          new DspError(
-            'INVALID_CONFIG',
-            `The configuration could not be sent to the engine: it must be plain JSON data (${reason}).`,
-          ),
-        );
-      }
-    });
   };
 
-  const dispose = (): void => {
-    worker?.terminate();
-    worker = null;
-    rejectAll((id) => new SupersededError(id));
+  const route = (routing: RequestRouting | undefined, lane: string) => ({ lane: routing?.lane ?? lane, priority: routing?.priority ?? 'interactive' });
+
+  const spectrum = async (config: unknown, routing?: RequestRouting): Promise<SpectrumResult> => {
+    const { result } = pool.run({ type: 'spectrum', config }, route(routing, 'spectrum'));
+    const r = expectResponse(await result, 'spectrum-result');
+    return {
+      config: r.config,
+      waveform: viewSpectrum(r.waveform),
+      transmitted: r.transmitted === null ? null : viewSpectrum(r.transmitted),
+      amplifier: r.amplifier === null ? null : viewAmplifier(r.amplifier),
+      elapsedMs: r.elapsedMs,
+    };
   };
 
-  return { generate, dispose };
+  const evm = async (config: unknown, routing?: RequestRouting): Promise<EvmResult> => {
+    const { result } = pool.run({ type: 'evm', config }, route(routing, 'evm'));
+    const r = expectResponse(await result, 'evm-result');
+    return {
+      config: r.config,
+      evm: { ...r.evm, constellationIq: r.evm.constellationIq === null ? null : new Float64Array(r.evm.constellationIq) },
+      elapsedMs: r.elapsedMs,
+    };
+  };
+
+  const backoff = async (config: unknown, routing?: RequestRouting, psatDbm?: number): Promise<BackoffResult> => {
+    const { result } = pool.run(
+      { type: 'backoff', config, ...(psatDbm !== undefined ? { psatDbm } : {}) },
+      { lane: routing?.lane ?? 'backoff', priority: routing?.priority ?? 'background' },
+    );
+    const r = expectResponse(await result, 'backoff-result');
+    return { config: r.config, analysis: r.analysis, elapsedMs: r.elapsedMs };
+  };
+
+  const ccdf = async (config: unknown, run: CcdfRunSpec, routing?: RequestRouting): Promise<CcdfResult> => {
+    const { result } = pool.run({ type: 'ccdf', config, run }, route(routing, 'ccdf'));
+    const r = expectResponse(await result, 'ccdf-result');
+    if (r.result === null) throw new Error('The engine answered a statistics request without its report.');
+    return viewCcdfResult(r.result);
+  };
+
+  const ccdfLane = async (config: unknown, run: CcdfRunSpec, blocks: number[], laneRunKey: string, routing: RequestRouting): Promise<CcdfLaneResult> => {
+    const { result } = pool.run({ type: 'ccdf', config, run, blocks, laneRunKey }, route(routing, 'ccdf-lane'));
+    const r = expectResponse(await result, 'ccdf-result');
+    if (r.lane === null) throw new Error('The engine answered a lane request without the lane counts.');
+    return { laneId: r.laneId, records: r.records, lane: r.lane, elapsedMs: r.elapsedMs };
+  };
+
+  const ccdfMerge = async (config: unknown, run: CcdfRunSpec, lanes: HistogramSetPayload[], records: BlockRecord[], routing: RequestRouting): Promise<CcdfResult> => {
+    // The lanes' buffers are copied, not moved: the run keeps them for the next merge.
+    const { result } = pool.run({ type: 'ccdf-merge', config, run, lanes, records }, route(routing, 'ccdf-merge'));
+    return viewCcdfResult(expectResponse(await result, 'ccdf-merged').result);
+  };
+
+  return { generate, exportFile, spectrum, evm, backoff, ccdf, ccdfLane, ccdfMerge, pool, dispose: () => pool.dispose() };
 }

@@ -21,8 +21,14 @@ import {
   type WaveformBuffers,
   type WaveformMeta,
   type WaveformPlanSummary,
+  type WorkerRequest,
   type WorkerResponse,
 } from './protocol';
+import { runBackoffRequest } from './handlers/backoffHandler';
+import { runCcdfMergeRequest, runCcdfRequest } from './handlers/ccdfHandler';
+import { runEvmRequest } from './handlers/evmHandler';
+import { runExportRequest } from './handlers/exportHandler';
+import { runSpectrumRequest } from './handlers/spectrumHandler';
 
 export interface EngineDispatchHost {
   /** Posts a response, moving the listed buffers. */
@@ -31,6 +37,8 @@ export interface EngineDispatchHost {
   schedule(task: () => void): void;
   /** Milliseconds from a monotonic clock (performance.now()). */
   now(): number;
+  /** Names this worker instance (a Monte-Carlo lane); set once at start-up. */
+  laneId?: string;
 }
 
 /** Returns the buffer behind `view` if the view spans all of it, else a copy's buffer, so it can be transferred alone. */
@@ -100,31 +108,59 @@ export function packWaveform(waveform: GeneratedWaveform): { meta: WaveformMeta;
   return { meta, buffers };
 }
 
-function runGenerate(request: GenerateRequest, host: EngineDispatchHost): void {
+/** What a handler returns: the response and the buffers to move with it. */
+export interface HandlerOutput {
+  response: WorkerResponse;
+  transfer: Transferable[];
+}
+
+type Handled = Exclude<WorkerRequest, { type: 'cancel' }>;
+type Handler<T extends Handled> = (request: T, startMs: number, host: EngineDispatchHost) => HandlerOutput;
+
+function runGenerate(request: GenerateRequest, startMs: number, host: EngineDispatchHost): HandlerOutput {
+  const config = parseWaveformConfig(request.config);
+  const { meta, buffers } = packWaveform(generateWaveform(config));
+  const response: GeneratedResponse = {
+    type: 'generated',
+    id: request.id,
+    protocolVersion: PROTOCOL_VERSION,
+    config,
+    meta,
+    buffers,
+    elapsedMs: host.now() - startMs,
+  };
+  return { response, transfer: Object.values(response.buffers) };
+}
+
+/** One handler per request type: validate, call src/dsp or src/io, pack the answer. */
+const handlers: { [K in Handled['type']]: Handler<Extract<Handled, { type: K }>> } = {
+  generate: runGenerate,
+  export: runExportRequest,
+  spectrum: runSpectrumRequest,
+  evm: runEvmRequest,
+  backoff: runBackoffRequest,
+  ccdf: runCcdfRequest,
+  'ccdf-merge': runCcdfMergeRequest,
+};
+
+function handle(request: Handled, host: EngineDispatchHost): void {
   const startMs = host.now();
-  let response: GeneratedResponse;
+  let output: HandlerOutput;
   try {
-    const config = parseWaveformConfig(request.config);
-    const { meta, buffers } = packWaveform(generateWaveform(config));
-    response = {
-      type: 'generated',
-      id: request.id,
-      protocolVersion: PROTOCOL_VERSION,
-      config,
-      meta,
-      buffers,
-      elapsedMs: host.now() - startMs,
-    };
+    output = (handlers[request.type] as Handler<Handled>)(request, startMs, host);
   } catch (error) {
     host.post(errorResponse(request.id, error), []);
     return;
   }
-  host.post(response, Object.values(response.buffers));
+  host.post(output.response, output.transfer);
 }
 
-/** Creates the `onmessage` handler: call it with each `event.data`. */
+/**
+ * Creates the `onmessage` handler: call it with each `event.data`. Requests are queued for one task
+ * turn, so a cancel or a newer generate request that arrives meanwhile can overtake them.
+ */
 export function createEngineDispatcher(host: EngineDispatchHost): (data: unknown) => void {
-  const queue: GenerateRequest[] = [];
+  const queue: Handled[] = [];
   const cancelledIds = new Set<number>();
   let newestGenerateId = -1;
   let drainScheduled = false;
@@ -133,12 +169,13 @@ export function createEngineDispatcher(host: EngineDispatchHost): (data: unknown
     drainScheduled = false;
     const batch = queue.splice(0, queue.length);
     for (const request of batch) {
-      const stale = request.id !== newestGenerateId || cancelledIds.has(request.id);
+      const stale = cancelledIds.has(request.id) || (request.type === 'generate' && request.id !== newestGenerateId);
       cancelledIds.delete(request.id);
-      if (!stale) runGenerate(request, host);
+      if (!stale) handle(request, host);
     }
     // A cancel that arrived after its request ran would otherwise stay in the set for good.
-    for (const id of cancelledIds) if (id <= newestGenerateId) cancelledIds.delete(id);
+    const newestId = Math.max(-1, ...batch.map((r) => r.id));
+    for (const id of cancelledIds) if (id <= newestId) cancelledIds.delete(id);
   };
 
   return (data: unknown): void => {
@@ -152,18 +189,15 @@ export function createEngineDispatcher(host: EngineDispatchHost): (data: unknown
       host.post(errorResponse(data.id, new DspError('INTERNAL', message)), []);
       return;
     }
-    switch (data.type) {
-      case 'cancel':
-        cancelledIds.add(data.targetId);
-        return;
-      case 'generate':
-        newestGenerateId = Math.max(newestGenerateId, data.id);
-        queue.push(data);
-        if (!drainScheduled) {
-          drainScheduled = true;
-          host.schedule(drain);
-        }
-        return;
+    if (data.type === 'cancel') {
+      cancelledIds.add(data.targetId);
+      return;
+    }
+    if (data.type === 'generate') newestGenerateId = Math.max(newestGenerateId, data.id);
+    queue.push(data);
+    if (!drainScheduled) {
+      drainScheduled = true;
+      host.schedule(drain);
     }
   };
 }

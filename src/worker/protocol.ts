@@ -13,9 +13,13 @@ import type { DspErrorCode } from '../dsp/errors';
 import type { AllocationPlan } from '../dsp/waveform/allocation';
 import type { GeneratedWaveform } from '../dsp/waveform/waveformGenerator';
 import type { WaveformPlan } from '../dsp/waveform/waveformPlan';
+import type { BackoffAnalysis } from '../dsp/backoff/backoffAnalysis';
+import type { ExportReport } from '../io/exportMetadata';
+import type { BlockRecord, CcdfReportPayload, CcdfRunSpec, HistogramSetPayload } from './ccdfTypes';
+import type { AmplifierPayload, EvmPayload, SpectrumPayload } from './measurementTypes';
 
 /** Bump when a message changes shape; a page and a worker from different builds then refuse each other. */
-export const PROTOCOL_VERSION = 1;
+export const PROTOCOL_VERSION = 2;
 export type ProtocolVersion = typeof PROTOCOL_VERSION;
 
 /** Id of the `ready` message the worker posts once at start-up (requests count from 1). */
@@ -41,7 +45,65 @@ export interface CancelRequest extends Envelope<'cancel'> {
   targetId: number;
 }
 
-export type WorkerRequest = GenerateRequest | CancelRequest;
+/**
+ * Build an IQ file in memory with the same src/io code the CLI streams to disk (exportToMemory), so
+ * the bytes are identical to `crestline generate` with the same configuration and options.
+ */
+export interface ExportRequest extends Envelope<'export'> {
+  /** Configuration input, validated by the worker. */
+  config: unknown;
+  /** Export options as `exportOptionsSchema` takes them (format, level, rate, offset, repeat…). */
+  options: unknown;
+}
+
+/** Spectrum (Welch PSD, ACLR, OBW) of the waveform and, with a transmitter chain, of what it transmits; amplifier curves. */
+export interface SpectrumRequest extends Envelope<'spectrum'> {
+  config: unknown;
+  /** Symbols analysed (default: the configuration's, at least 14). */
+  symbols?: number;
+}
+
+/** EVM of the transmitted waveform through the reference receiver. */
+export interface EvmRequest extends Envelope<'evm'> {
+  config: unknown;
+}
+
+/** Least amplifier back-off meeting the EVM and ACLR limits (src/dsp/backoff), with the configuration's amplifier. */
+export interface BackoffRequest extends Envelope<'backoff'> {
+  config: unknown;
+  /** Saturated output power, dBm, for absolute usable power (optional). */
+  psatDbm?: number;
+}
+
+/**
+ * Monte-Carlo statistics of a configuration (src/dsp/montecarlo). Without `laneRunKey`: measure `blocks` (default all)
+ * with fresh counts and answer with the report (the interactive CCDF). With it: add the blocks to this worker's
+ * counts for that run (a lane) and answer with the block records and a snapshot of the lane's counts.
+ */
+export interface CcdfRequest extends Envelope<'ccdf'> {
+  config: unknown;
+  run: CcdfRunSpec;
+  blocks?: number[];
+  laneRunKey?: string;
+}
+
+/** Merges the lanes of a long run (their latest snapshots and all block records) into a report. */
+export interface CcdfMergeRequest extends Envelope<'ccdf-merge'> {
+  config: unknown;
+  run: CcdfRunSpec;
+  lanes: HistogramSetPayload[];
+  records: BlockRecord[];
+}
+
+export type WorkerRequest =
+  | GenerateRequest
+  | CancelRequest
+  | ExportRequest
+  | SpectrumRequest
+  | EvmRequest
+  | BackoffRequest
+  | CcdfRequest
+  | CcdfMergeRequest;
 export type WorkerRequestType = WorkerRequest['type'];
 
 // ---------------------------------------------------------------------------------------------
@@ -122,13 +184,87 @@ export interface ErrorResponse extends Envelope<'error'> {
   details?: Record<string, unknown>;
 }
 
-export type WorkerResponse = ReadyResponse | GeneratedResponse | ErrorResponse;
+export interface ExportedResponse extends Envelope<'exported'> {
+  /** The data file, moved. */
+  data: ArrayBuffer;
+  /** The metadata file (SigMF meta or our sidecar), UTF-8 text. */
+  metaText: string;
+  dataSuffix: string;
+  metaSuffix: string;
+  sha512Hex: string;
+  dataBytes: number;
+  /** Level, peak, clipping, warnings: what the export dialog shows before the files are saved. */
+  report: ExportReport;
+  elapsedMs: number;
+}
+
+export interface SpectrumResponse extends Envelope<'spectrum-result'> {
+  config: WaveformConfig;
+  /** The generated waveform's spectrum (src/dsp/metrics/spectrumMeasurement.ts). */
+  waveform: SpectrumPayload;
+  /** After PAPR reduction, windowing, impairments and the amplifier, when any is configured. */
+  transmitted: SpectrumPayload | null;
+  amplifier: AmplifierPayload | null;
+  elapsedMs: number;
+}
+
+export interface EvmResponse extends Envelope<'evm-result'> {
+  config: WaveformConfig;
+  evm: EvmPayload;
+  elapsedMs: number;
+}
+
+export interface BackoffResponse extends Envelope<'backoff-result'> {
+  config: WaveformConfig;
+  analysis: BackoffAnalysis;
+  elapsedMs: number;
+}
+
+export interface CcdfResponse extends Envelope<'ccdf-result'> {
+  config: WaveformConfig;
+  /** Identifies the worker instance whose lane `lane` is (long runs). */
+  laneId: string;
+  records: BlockRecord[];
+  /** Long runs: the lane's counts so far. */
+  lane: HistogramSetPayload | null;
+  /** Interactive runs: the report of these blocks. */
+  result: CcdfReportPayload | null;
+  elapsedMs: number;
+}
+
+export interface CcdfMergedResponse extends Envelope<'ccdf-merged'> {
+  result: CcdfReportPayload;
+  elapsedMs: number;
+}
+
+export type WorkerResponse =
+  | ReadyResponse
+  | CcdfResponse
+  | CcdfMergedResponse
+  | GeneratedResponse
+  | ExportedResponse
+  | SpectrumResponse
+  | EvmResponse
+  | BackoffResponse
+  | ErrorResponse;
 export type WorkerResponseType = WorkerResponse['type'];
 
 /** The responses a request can be answered with. */
 export type ResponseFor<TRequest extends WorkerRequest> = TRequest extends GenerateRequest
   ? GeneratedResponse | ErrorResponse
-  : never;
+  : TRequest extends ExportRequest
+    ? ExportedResponse | ErrorResponse
+    : TRequest extends SpectrumRequest
+      ? SpectrumResponse | ErrorResponse
+      : TRequest extends EvmRequest
+        ? EvmResponse | ErrorResponse
+        : TRequest extends BackoffRequest
+          ? BackoffResponse | ErrorResponse
+          : TRequest extends CcdfRequest
+            ? CcdfResponse | ErrorResponse
+            : TRequest extends CcdfMergeRequest
+              ? CcdfMergedResponse | ErrorResponse
+              : never;
 
 // ---------------------------------------------------------------------------------------------
 // Guards (messages arrive as `unknown`)
@@ -137,8 +273,18 @@ function isEnvelope(value: unknown): value is { type: unknown; id: unknown; prot
   return typeof value === 'object' && value !== null && 'type' in value && 'id' in value && 'protocolVersion' in value;
 }
 
-const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel'];
-const responseTypes: readonly WorkerResponseType[] = ['ready', 'generated', 'error'];
+const requestTypes: readonly WorkerRequestType[] = ['generate', 'cancel', 'export', 'spectrum', 'evm', 'backoff', 'ccdf', 'ccdf-merge'];
+const responseTypes: readonly WorkerResponseType[] = [
+  'ready',
+  'generated',
+  'exported',
+  'spectrum-result',
+  'evm-result',
+  'backoff-result',
+  'ccdf-result',
+  'ccdf-merged',
+  'error',
+];
 
 /** True when `value` looks like a request of a known type (its version is checked separately). */
 export function isWorkerRequest(value: unknown): value is WorkerRequest {

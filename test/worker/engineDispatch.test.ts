@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { parseWaveformConfig } from '../../src/config/configParse';
+import { createHash } from 'node:crypto';
 import { generateWaveform } from '../../src/dsp/waveform/waveformGenerator';
+import { exportToMemory } from '../../src/io/exportMemory';
 import { createEngineDispatcher, packWaveform, summarizePlan } from '../../src/worker/engineDispatch';
 import { PROTOCOL_VERSION, waveformBufferKeys, type WorkerResponse } from '../../src/worker/protocol';
 
@@ -86,6 +88,31 @@ describe('engine dispatcher', () => {
     dispatch({ type: 'cancel', id: 4, protocolVersion: PROTOCOL_VERSION, targetId: 3 });
     runTasks();
     expect(posted).toHaveLength(1);
+  });
+
+  it('builds an export with the same src/io code and bytes as the CLI, moving the data buffer', () => {
+    const { posted, dispatch, runTasks } = createHarness();
+    const options = { format: 'sigmf-ci16', level: { mode: 'rms', levelDbfs: -15 } };
+    dispatch({ type: 'export', id: 9, protocolVersion: PROTOCOL_VERSION, config: smallConfig, options });
+    runTasks();
+    const { message, transfer } = posted[0]!;
+    if (message.type !== 'exported') throw new Error(`expected exported, got ${message.type}`);
+    const expected = exportToMemory(parseWaveformConfig(smallConfig), options as Parameters<typeof exportToMemory>[1]);
+    expect(new Uint8Array(message.data)).toEqual(expected.data);
+    expect(message.metaText).toBe(expected.metaText);
+    expect(message.sha512Hex).toBe(expected.sha512Hex);
+    // SHA-512 of the data, by node:crypto (independent of src/io/sha512.ts).
+    expect(createHash('sha512').update(new Uint8Array(message.data)).digest('hex')).toBe(message.sha512Hex);
+    expect(message.report.rmsDbfs).toBeCloseTo(-15, 1);
+    expect(transfer).toEqual([message.data]);
+  });
+
+  it('does not hold a newer generate back behind an export, nor drop either', () => {
+    const { posted, dispatch, runTasks } = createHarness();
+    dispatch({ type: 'export', id: 1, protocolVersion: PROTOCOL_VERSION, config: smallConfig, options: {} });
+    dispatch(generate(2));
+    runTasks();
+    expect(posted.map((p) => `${p.message.type}:${p.message.id}`)).toEqual(['exported:1', 'generated:2']);
   });
 
   it('refuses a message from another protocol version or of unknown shape', () => {

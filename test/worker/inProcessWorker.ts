@@ -12,6 +12,7 @@ export class InProcessWorker implements WorkerLike {
   onerror: ((event: ErrorEvent) => void) | null = null;
   onmessageerror: ((event: MessageEvent) => void) | null = null;
   terminated = false;
+  static instances = 0;
   readonly received: WorkerRequest[] = [];
   readonly sent: WorkerResponse[] = [];
   private readonly dispatch: (data: unknown) => void;
@@ -22,6 +23,7 @@ export class InProcessWorker implements WorkerLike {
       post: (message, transfer) => this.deliver({ ...message, protocolVersion: version } as WorkerResponse, transfer),
       schedule: (task) => setTimeout(task, 0),
       now: () => performance.now(),
+      laneId: `in-process-${++InProcessWorker.instances}`,
     });
     if (options.sendReady ?? true) {
       this.deliver({ type: 'ready', id: READY_ID, protocolVersion: version } as WorkerResponse, []);

@@ -1,6 +1,8 @@
 import { describe, expectTypeOf, it, expect } from 'vitest';
 import type { WaveformConfig } from '../../src/config/schema';
 import type { DspErrorCode } from '../../src/dsp/errors';
+import type { ExportReport } from '../../src/io/exportMetadata';
+import type { HistogramSetPayload } from '../../src/worker/ccdfTypes';
 import { RE_DATA, RE_EMPTY, RE_REFERENCE, type GeneratedWaveform } from '../../src/dsp/waveform/waveformGenerator';
 import {
   GRID_KIND,
@@ -9,6 +11,18 @@ import {
   PROTOCOL_VERSION,
   waveformBufferKeys,
   type CancelRequest,
+  type BackoffRequest,
+  type CcdfMergedResponse,
+  type CcdfMergeRequest,
+  type CcdfRequest,
+  type CcdfResponse,
+  type BackoffResponse,
+  type EvmRequest,
+  type EvmResponse,
+  type ExportedResponse,
+  type SpectrumRequest,
+  type SpectrumResponse,
+  type ExportRequest,
   type EngineWaveform,
   type ErrorResponse,
   type GenerateRequest,
@@ -30,8 +44,18 @@ import {
 
 describe('protocol unions (compile time)', () => {
   it('discriminates requests and responses on type', () => {
-    expectTypeOf<WorkerRequestType>().toEqualTypeOf<'generate' | 'cancel'>();
-    expectTypeOf<WorkerResponseType>().toEqualTypeOf<'ready' | 'generated' | 'error'>();
+    expectTypeOf<WorkerRequestType>().toEqualTypeOf<'generate' | 'cancel' | 'export' | 'spectrum' | 'evm' | 'backoff' | 'ccdf' | 'ccdf-merge'>();
+    expectTypeOf<WorkerResponseType>().toEqualTypeOf<'ready' | 'generated' | 'exported' | 'spectrum-result' | 'evm-result' | 'backoff-result' | 'ccdf-result' | 'ccdf-merged' | 'error'
+    >();
+    expectTypeOf<ResponseFor<CcdfRequest>>().toEqualTypeOf<CcdfResponse | ErrorResponse>();
+    expectTypeOf<ResponseFor<CcdfMergeRequest>>().toEqualTypeOf<CcdfMergedResponse | ErrorResponse>();
+    expectTypeOf<CcdfResponse['lane']>().toEqualTypeOf<HistogramSetPayload | null>();
+    expectTypeOf<ResponseFor<BackoffRequest>>().toEqualTypeOf<BackoffResponse | ErrorResponse>();
+    expectTypeOf<ResponseFor<SpectrumRequest>>().toEqualTypeOf<SpectrumResponse | ErrorResponse>();
+    expectTypeOf<ResponseFor<EvmRequest>>().toEqualTypeOf<EvmResponse | ErrorResponse>();
+    expectTypeOf<SpectrumResponse['waveform']['psdPerHz']>().toEqualTypeOf<ArrayBuffer>();
+    expectTypeOf<Extract<WorkerRequest, { type: 'export' }>>().toEqualTypeOf<ExportRequest>();
+    expectTypeOf<Extract<WorkerResponse, { type: 'exported' }>>().toEqualTypeOf<ExportedResponse>();
     expectTypeOf<Extract<WorkerRequest, { type: 'generate' }>>().toEqualTypeOf<GenerateRequest>();
     expectTypeOf<Extract<WorkerRequest, { type: 'cancel' }>>().toEqualTypeOf<CancelRequest>();
     expectTypeOf<Extract<WorkerResponse, { type: 'error' }>>().toEqualTypeOf<ErrorResponse>();
@@ -59,6 +83,13 @@ describe('protocol unions (compile time)', () => {
     expectTypeOf<GeneratedResponse['config']>().toEqualTypeOf<WaveformConfig>();
   });
 
+  it('answers an export request with the files (data moved as a buffer) or an error', () => {
+    expectTypeOf<ResponseFor<ExportRequest>>().toEqualTypeOf<ExportedResponse | ErrorResponse>();
+    expectTypeOf<ExportedResponse['data']>().toEqualTypeOf<ArrayBuffer>();
+    expectTypeOf<ExportedResponse['report']>().toEqualTypeOf<ExportReport>();
+    expectTypeOf<ExportRequest['options']>().toBeUnknown();
+  });
+
   it('moves every typed array of the waveform as an ArrayBuffer and clones the rest', () => {
     expectTypeOf<WaveformBufferKey>().toEqualTypeOf<'waveformIq' | 'gridIq' | 'gridKinds' | 'dataSymbolsIq' | 'bits'>();
     expectTypeOf<WaveformBufferKey>().toEqualTypeOf<TypedArrayKeys<GeneratedWaveform>>();
@@ -84,6 +115,7 @@ describe('protocol guards', () => {
   it('accepts well-formed requests and rejects others', () => {
     expect(isWorkerRequest({ ...envelope, type: 'generate', config: {} })).toBe(true);
     expect(isWorkerRequest({ ...envelope, type: 'cancel', targetId: 2 })).toBe(true);
+    expect(isWorkerRequest({ ...envelope, type: 'export', config: {}, options: {} })).toBe(true);
     expect(isWorkerRequest({ ...envelope, type: 'cancel' })).toBe(false);
     expect(isWorkerRequest({ ...envelope, type: 'explode' })).toBe(false);
     expect(isWorkerRequest({ type: 'generate', config: {} })).toBe(false);

@@ -1,114 +1,63 @@
-import { useId } from 'react';
 import { useAppStore } from '../state/AppStoreContext';
 import { fieldMessage, unplacedIssues, type ConfigDraft } from '../state/configValidation';
-import { configFieldKeys, configFields, parseNumberInput, type ConfigField } from './configFields';
+import { AllocationEditor } from './AllocationEditor';
+import { configFieldKeys, configSections, type ConfigField, type ConfigSection } from './configFields';
+import { FieldControl } from './FieldControl';
 
-interface FieldProps {
-  field: ConfigField;
-  draft: ConfigDraft;
-  error: string | undefined;
-  onChange(key: string, value: unknown): void;
-}
-
-function FieldControl({ field, draft, error, onChange }: FieldProps) {
-  const id = useId();
-  const errorId = `${id}-error`;
-  const hintId = `${id}-hint`;
-  const describedBy = [error !== undefined ? errorId : '', field.hint !== undefined ? hintId : ''].filter(Boolean).join(' ');
-  const raw = draft[field.key];
-  const common = {
-    id,
-    name: field.key,
-    'aria-invalid': error !== undefined,
-    ...(describedBy !== '' ? { 'aria-describedby': describedBy } : {}),
-  };
-
-  let control;
-  if (field.kind === 'select') {
-    const options = field.options(draft);
-    const current = raw ?? field.defaultValue(draft);
-    // A value the list does not hold (e.g. loaded from a file) stays visible, so its error makes sense.
-    const known = options.some((option) => option.value === current);
-    control = (
-      <select
-        {...common}
-        value={String(current)}
-        onChange={(event) => {
-          const chosen = options.find((option) => String(option.value) === event.target.value);
-          onChange(field.key, chosen?.value ?? event.target.value);
-        }}
-      >
-        {!known && <option value={String(current)}>{String(current)}</option>}
-        {options.map((option) => (
-          <option key={String(option.value)} value={String(option.value)}>
-            {option.label}
-          </option>
-        ))}
-      </select>
-    );
-  } else {
-    const listId = field.suggestions !== undefined ? `${id}-suggestions` : undefined;
-    control = (
-      <span className="number-with-unit">
-        <input
-          {...common}
-          type="number"
-          inputMode="decimal"
-          step={field.step ?? 'any'}
-          value={raw === undefined ? String(field.defaultValue) : String(raw)}
-          {...(listId !== undefined ? { list: listId } : {})}
-          onChange={(event) => onChange(field.key, parseNumberInput(event.target.value))}
-        />
-        {field.unit !== undefined && <span className="unit">{field.unit}</span>}
-        {listId !== undefined && (
-          <datalist id={listId}>
-            {field.suggestions?.(draft).map((value) => (
-              <option key={value} value={value} />
-            ))}
-          </datalist>
-        )}
-      </span>
-    );
-  }
-
-  return (
-    <div className={`field${error !== undefined ? ' field-invalid' : ''}`} data-field={field.key}>
-      <label htmlFor={id}>{field.label}</label>
-      {control}
-      {field.hint !== undefined && (
-        <p id={hintId} className="field-hint">
-          {field.hint}
-        </p>
-      )}
-      {error !== undefined && (
-        <p id={errorId} className="field-error" role="alert">
-          {error}
-        </p>
-      )}
-    </div>
+/** The field's message: issues at its path or below, plus those exactly at the paths it also shows. */
+function messageFor(fieldErrors: Readonly<Record<string, string>>, field: ConfigField): string | undefined {
+  const parts = [fieldMessage(fieldErrors, field.path), ...(field.alsoShows ?? []).map((path) => fieldErrors[path])].filter(
+    (message): message is string => message !== undefined,
   );
+  return parts.length > 0 ? parts.join('; ') : undefined;
 }
 
-/** The compact configuration form: every change is checked by the schema before it reaches the engine. */
+function sectionHasIssue(section: ConfigSection, draft: ConfigDraft, fieldErrors: Readonly<Record<string, string>>): boolean {
+  if (section.editor === 'allocation' && fieldMessage(fieldErrors, 'allocation') !== undefined) return true;
+  return section.fields.some((field) => (field.visible?.(draft) ?? true) && messageFor(fieldErrors, field) !== undefined);
+}
+
+/** An optional section opens by itself when the draft uses it. */
+function sectionActive(section: ConfigSection, draft: ConfigDraft): boolean {
+  return section.fields.some((field) => field.kind === 'toggle' && draft[field.path] !== undefined);
+}
+
+/** The configuration form, in sections; every change is checked by the schema before it reaches the engine. */
 export function ConfigPanel() {
   const draft = useAppStore((state) => state.draft);
   const fieldErrors = useAppStore((state) => state.fieldErrors);
   const setField = useAppStore((state) => state.setField);
   const others = unplacedIssues(fieldErrors, configFieldKeys);
-  const visibleFields = configFields.filter((field) => field.visible?.(draft) ?? true);
 
   return (
     <section className="panel config-panel" aria-labelledby="config-heading">
       <h2 id="config-heading">Configuration</h2>
       <form onSubmit={(event) => event.preventDefault()} noValidate>
-        {visibleFields.map((field) => (
-          <FieldControl
-            key={field.key}
-            field={field}
-            draft={draft}
-            error={fieldMessage(fieldErrors, field.key)}
-            onChange={setField}
-          />
+        {configSections.map((section) => (
+          <details key={section.id} className="config-section" open={section.startClosed !== true || sectionActive(section, draft)} data-section={section.id}>
+            <summary>
+              {section.title}
+              {sectionHasIssue(section, draft, fieldErrors) && (
+                <span className="section-issue" aria-label="has a problem">
+                  !
+                </span>
+              )}
+            </summary>
+            <div className="section-body">
+              {section.fields
+                .filter((field) => field.visible?.(draft) ?? true)
+                .map((field) => (
+                  <FieldControl
+                    key={`${field.path}:${field.kind}`}
+                    field={field}
+                    draft={draft}
+                    error={messageFor(fieldErrors, field)}
+                    onChange={setField}
+                  />
+                ))}
+              {section.editor === 'allocation' && <AllocationEditor />}
+            </div>
+          </details>
         ))}
       </form>
       {others.length > 0 && (

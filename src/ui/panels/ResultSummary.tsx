@@ -12,6 +12,7 @@ export function ResultSummary() {
   const symbolIndex = useAppStore((state) => state.symbolIndex);
   const setSymbolIndex = useAppStore((state) => state.setSymbolIndex);
   const resubmit = useAppStore((state) => state.resubmit);
+  const lastUpdateMs = useAppStore((state) => state.lastUpdateMs);
 
   const waveform = result?.waveform;
   const numerology = waveform?.summary.numerology;
@@ -33,6 +34,7 @@ export function ResultSummary() {
           ['Sample rate', formatRate(waveform.sampleRateHz)],
           ['Samples', `${waveform.numSamples.toLocaleString('en')} (${waveform.numSymbols} symbols)`],
           ['Engine time', `${result?.elapsedMs.toFixed(1) ?? '–'} ms`],
+          ['Screen update', lastUpdateMs === null ? '–' : `${lastUpdateMs.toFixed(0)} ms (change → all plots drawn)`],
         ]
       : [];
   const numSymbols = waveform?.numSymbols ?? 1;

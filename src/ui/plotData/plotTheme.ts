@@ -19,6 +19,17 @@ export interface PlotTheme {
   cyclicPrefixFill: string;
   boundary: string;
   peak: string;
+  /** Resource-grid kinds: empty, data, reference (our own scheme, distinct for common colour-vision deficiencies). */
+  gridEmpty: string;
+  gridData: string;
+  gridReference: string;
+  /** Colours for overlaid scenarios and curves, in order. */
+  series: readonly string[];
+  /** Fill of a confidence band, shaded measurement band, limit line. */
+  band: string;
+  /** A second band fill (UTRA channels beside the same-standard ones). */
+  bandAlt: string;
+  limit: string;
 }
 
 export const plotThemes: Record<ColorScheme, PlotTheme> = {
@@ -35,6 +46,13 @@ export const plotThemes: Record<ColorScheme, PlotTheme> = {
     cyclicPrefixFill: 'rgba(120, 130, 150, 0.16)',
     boundary: '#6b7280',
     peak: '#b4162c',
+    gridEmpty: '#eef1f5',
+    gridData: '#2f6fd0',
+    gridReference: '#e0a21b',
+    series: ['#1f5fbf', '#c2571a', '#2c7a3f', '#8a3ab9', '#b4162c', '#0f8a8f'],
+    band: 'rgba(31, 95, 191, 0.14)',
+    bandAlt: 'rgba(194, 87, 26, 0.12)',
+    limit: '#b4162c',
   },
   dark: {
     scheme: 'dark',
@@ -49,6 +67,13 @@ export const plotThemes: Record<ColorScheme, PlotTheme> = {
     cyclicPrefixFill: 'rgba(160, 170, 190, 0.16)',
     boundary: '#9aa4b2',
     peak: '#ff6b7d',
+    gridEmpty: '#202833',
+    gridData: '#5d95ea',
+    gridReference: '#f2c14e',
+    series: ['#6ea8ff', '#ffa25c', '#67d37f', '#c8a6ff', '#ff6b7d', '#4fd1d6'],
+    band: 'rgba(110, 168, 255, 0.18)',
+    bandAlt: 'rgba(255, 162, 92, 0.14)',
+    limit: '#ff6b7d',
   },
 };
 

@@ -65,17 +65,48 @@ export function prepareTimeSamples(
   };
 }
 
+/** Most points drawn per trace; longer symbols keep each bucket's minimum and maximum (the envelope and its peaks). */
+export const MAX_TIME_POINTS = 1000;
+
+/**
+ * Min/max decimation for drawing: splits the samples into buckets and keeps, in time order, each bucket's smallest
+ * and largest value, so at most `maxPoints` remain and no extreme disappears. Returns the input when it is short.
+ */
+export function minMaxDecimate(x: Float64Array, y: Float64Array, maxPoints = MAX_TIME_POINTS): { x: Float64Array; y: Float64Array } {
+  const n = y.length;
+  const bucket = Math.ceil(n / Math.max(1, Math.floor(maxPoints / 2)));
+  if (bucket <= 2) return { x, y };
+  const outX: number[] = [];
+  const outY: number[] = [];
+  for (let start = 0; start < n; start += bucket) {
+    let lo = start;
+    let hi = start;
+    for (let i = start; i < Math.min(n, start + bucket); i++) {
+      if ((y[i] ?? 0) < (y[lo] ?? 0)) lo = i;
+      if ((y[i] ?? 0) > (y[hi] ?? 0)) hi = i;
+    }
+    for (const i of lo <= hi ? [lo, hi] : [hi, lo]) {
+      outX.push(x[i] ?? Number.NaN);
+      outY.push(y[i] ?? Number.NaN);
+    }
+  }
+  return { x: Float64Array.from(outX), y: Float64Array.from(outY) };
+}
+
 export function buildTimeSamplesFigure(series: TimeSamplesSeries, theme: PlotTheme): { data: Data[]; layout: Partial<Layout> } {
   const base = baseLayout(theme);
-  const line = (name: string, y: Float64Array, color: string, width: number): Data => ({
+  const line = (name: string, values: Float64Array, color: string, width: number): Data => {
+    const { x, y } = minMaxDecimate(series.timeUs, values);
+    return {
     type: 'scatter',
     mode: 'lines',
     name,
-    x: series.timeUs,
+    x,
     y,
     line: { color, width },
     hovertemplate: `${name} %{y:.4g}<br>%{x:.3f} µs<extra></extra>`,
-  });
+    };
+  };
   return {
     data: [
       line('I', series.inPhase, theme.inPhase, 1),
@@ -94,7 +125,7 @@ export function buildTimeSamplesFigure(series: TimeSamplesSeries, theme: PlotThe
     layout: {
       ...base,
       title: {
-        text: `Symbol ${series.symbolIndex}: time samples (peak/average ${series.peakToAveragePowerDb.toFixed(2)} dB)`,
+        text: `Symbol ${series.symbolIndex}: time samples, ${series.timeUs.length} samples (peak/average ${series.peakToAveragePowerDb.toFixed(2)} dB)`,
         font: { size: 13 },
         x: 0,
         xanchor: 'left',

@@ -9,9 +9,10 @@ export function TimeSamplesPlot() {
   const waveform = useAppStore((state) => state.result?.waveform ?? null);
   const symbolIndex = useAppStore((state) => state.symbolIndex);
   const scheme = useAppStore((state) => state.colorScheme);
+  const epoch = useAppStore((state) => state.resultSeq);
   const figure = useMemo(() => {
     if (waveform === null || symbolIndex >= waveform.symbolLayout.length) return null;
     return buildTimeSamplesFigure(prepareTimeSamples(waveform, symbolIndex), plotThemes[scheme]);
   }, [waveform, symbolIndex, scheme]);
-  return <PlotlyFigure figure={figure} label={`Time samples of OFDM symbol ${symbolIndex}`} testId="time-samples-plot" />;
+  return <PlotlyFigure figure={figure} label={`Time samples of OFDM symbol ${symbolIndex}`} epoch={epoch} testId="time-samples-plot" />;
 }

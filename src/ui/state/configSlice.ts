@@ -6,6 +6,7 @@
 import type { StateCreator } from 'zustand';
 import type { ConfigIssue } from '../../config/configParse';
 import type { Scenario } from '../../scenarios/demoScenario';
+import { applyFieldChange } from '../form/draftTransitions';
 import { checkDraftAgainstSchema, issuesByPath, type ConfigDraft } from './configValidation';
 import type { AppState } from './store';
 
@@ -17,47 +18,53 @@ export interface ConfigSlice {
   fieldErrors: Readonly<Record<string, string>>;
   /** The latest schema-valid draft, for the engine; unchanged while the draft is invalid. */
   submittedDraft: ConfigDraft | null;
+  /** Counts submitted drafts; results carry the number of the draft they answer. */
+  submittedSeq: number;
   loadScenario(scenario: Scenario): void;
-  /** Sets a top-level field; `undefined` removes it so the schema default applies. */
-  setField(key: string, value: unknown): void;
+  /**
+   * Sets the field at dotted `path` ("oversampling", "data.seed", "allocation"); `undefined` removes it
+   * so the schema default applies. Fields the change makes meaningless go too (draftTransitions.ts).
+   */
+  setField(path: string, value: unknown): void;
+  /** Replaces the whole draft (an imported or restored configuration), keeping the scenario name. */
+  replaceDraft(draft: ConfigDraft, scenarioName?: string, scenarioDescription?: string): void;
   setEngineIssues(issues: readonly ConfigIssue[]): void;
   /** Sends the submitted draft again (e.g. after the worker crashed). */
   resubmit(): void;
 }
 
-/** Fields that only mean something for some standards, dropped when the standard changes. */
-function withoutStaleFields(draft: Record<string, unknown>, key: string, value: unknown): void {
-  if (key === 'standard' && value !== 'nr') delete draft.subcarrierSpacingKHz;
-}
-
 function applyDraft(
   draft: ConfigDraft,
-): Pick<ConfigSlice, 'draft' | 'fieldErrors'> & Partial<Pick<ConfigSlice, 'submittedDraft'>> {
+  seq: number,
+): Pick<ConfigSlice, 'draft' | 'fieldErrors'> & Partial<Pick<ConfigSlice, 'submittedDraft' | 'submittedSeq'>> {
   const issues = checkDraftAgainstSchema(draft);
   if (issues.length > 0) return { draft, fieldErrors: issuesByPath(issues) };
-  return { draft, fieldErrors: {}, submittedDraft: draft };
+  return { draft, fieldErrors: {}, submittedDraft: draft, submittedSeq: seq + 1 };
 }
 
-export const createConfigSlice: StateCreator<AppState, [], [], ConfigSlice> = (set) => ({
+export const createConfigSlice: StateCreator<AppState, [], [], ConfigSlice> = (set, get) => ({
   scenarioName: '',
   scenarioDescription: '',
   draft: {},
   fieldErrors: {},
   submittedDraft: null,
+  submittedSeq: 0,
   loadScenario: (scenario) =>
     set({
       scenarioName: scenario.name,
       scenarioDescription: scenario.description,
-      ...applyDraft(structuredClone(scenario.config) as ConfigDraft),
+      ...applyDraft(structuredClone(scenario.config) as ConfigDraft, get().submittedSeq),
     }),
-  setField: (key, value) =>
-    set((state) => {
-      const next: Record<string, unknown> = { ...state.draft };
-      if (value === undefined) delete next[key];
-      else next[key] = value;
-      withoutStaleFields(next, key, value);
-      return applyDraft(next);
-    }),
+  setField: (path, value) => set((state) => applyDraft(applyFieldChange(state.draft, path, value), state.submittedSeq)),
+  replaceDraft: (draft, scenarioName, scenarioDescription) =>
+    set((state) => ({
+      scenarioName: scenarioName ?? state.scenarioName,
+      scenarioDescription: scenarioDescription ?? state.scenarioDescription,
+      ...applyDraft(structuredClone(draft), state.submittedSeq),
+    })),
   setEngineIssues: (issues) => set({ fieldErrors: issuesByPath(issues) }),
-  resubmit: () => set((state) => (state.submittedDraft === null ? {} : { submittedDraft: { ...state.submittedDraft } })),
+  resubmit: () =>
+    set((state) =>
+      state.submittedDraft === null ? {} : { submittedDraft: { ...state.submittedDraft }, submittedSeq: state.submittedSeq + 1 },
+    ),
 });

@@ -14,11 +14,13 @@ export interface ResultsSlice {
   status: EngineStatus;
   /** Last successful result; kept (and shown as stale) while a newer request runs or fails. */
   result: EngineResult | null;
+  /** submittedSeq of the draft `result` answers. */
+  resultSeq: number;
   failure: EngineFailure | null;
   /** Set when the worker crashed and was restarted; shown until the next success. */
   engineNotice: string | null;
   requestStarted(): void;
-  requestSucceeded(result: EngineResult): void;
+  requestSucceeded(result: EngineResult, seq: number): void;
   requestFailed(failure: EngineFailure): void;
   engineRestarted(notice: string): void;
 }
@@ -26,13 +28,15 @@ export interface ResultsSlice {
 export const createResultsSlice: StateCreator<AppState, [], [], ResultsSlice> = (set) => ({
   status: 'idle',
   result: null,
+  resultSeq: -1,
   failure: null,
   engineNotice: null,
   requestStarted: () => set({ status: 'running' }),
-  requestSucceeded: (result) =>
+  requestSucceeded: (result, seq) =>
     set((state) => ({
       status: 'ready',
       result,
+      resultSeq: seq,
       failure: null,
       engineNotice: null,
       // Keep the chosen symbol when the new waveform has it.

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseWaveformConfig } from '../../../src/config/configParse';
 import { generateWaveform } from '../../../src/dsp/waveform/waveformGenerator';
-import { buildConstellationFigure, countDistinctPoints, prepareConstellation } from '../../../src/ui/plotData/constellation';
+import { buildConstellationFigure, countDistinctPoints, prepareConstellation, prepareReceivedConstellation } from '../../../src/ui/plotData/constellation';
 import { plotThemes } from '../../../src/ui/plotData/plotTheme';
 import { expectCloseArray } from '../../helpers/expectClose';
 
@@ -49,10 +49,25 @@ describe('buildConstellationFigure', () => {
   it('uses a square, symmetric view with equal axis scales', () => {
     const waveform = generate({ standard: 'lte', bandwidthMHz: 1.4, symbols: 1 });
     const figure = buildConstellationFigure(prepareConstellation(waveform, 0), plotThemes.light, 'QPSK');
-    const limit = Math.SQRT1_2 * 1.2;
+    const limit = Math.SQRT1_2 * 1.15;
     expectCloseArray((figure.layout.xaxis?.range ?? []).map(Number), [-limit, limit], absTol, 'x range');
     expectCloseArray((figure.layout.yaxis?.range ?? []).map(Number), [-limit, limit], absTol, 'y range');
     expect(figure.layout.yaxis).toMatchObject({ scaleanchor: 'x', scaleratio: 1 });
     expect(figure.layout.title).toMatchObject({ text: 'Symbol 0: 72 QPSK data symbols' });
+  });
+
+  it('overlays the received points, aligned with the ideal ones, and widens the view for them', () => {
+    const waveform = generate({ standard: 'lte', bandwidthMHz: 1.4, symbols: 2 });
+    // A received constellation: the ideal symbols of both OFDM symbols scaled by 1.3 (fill order, as the receiver gives them).
+    const receivedIq = waveform.dataSymbolsIq.map((v) => 1.3 * v);
+    const points = prepareReceivedConstellation(receivedIq, waveform, 1);
+    const ideal = prepareConstellation(waveform, 1);
+    expect(points).not.toBeNull();
+    expectCloseArray(points!.inPhase, ideal.inPhase.map((v) => 1.3 * v), absTol, 'received I of symbol 1');
+    const figure = buildConstellationFigure(ideal, plotThemes.light, 'QPSK', { ...points!, evmPercent: 30 });
+    expect(figure.data.map((t) => t.name)).toEqual(['ideal', 'received (EVM 30.00 %)']);
+    expectCloseArray((figure.layout.xaxis?.range ?? []).map(Number), [-1.3 * Math.SQRT1_2 * 1.15, 1.3 * Math.SQRT1_2 * 1.15], absTol, 'x range');
+    // A receiver constellation shorter than the grid expects (e.g. another configuration) is not drawn.
+    expect(prepareReceivedConstellation(receivedIq.subarray(0, 10), waveform, 1)).toBeNull();
   });
 });

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { parseWaveformConfig } from '../../../src/config/configParse';
 import { generateWaveform } from '../../../src/dsp/waveform/waveformGenerator';
 import { plotThemes } from '../../../src/ui/plotData/plotTheme';
-import { buildTimeSamplesFigure, prepareTimeSamples } from '../../../src/ui/plotData/timeSamples';
+import { buildTimeSamplesFigure, MAX_TIME_POINTS, prepareTimeSamples } from '../../../src/ui/plotData/timeSamples';
 import { expectCloseArray } from '../../helpers/expectClose';
 
 const absTol = 1e-9;
@@ -72,6 +72,19 @@ describe('buildTimeSamplesFigure', () => {
     expect(cpShade).toMatchObject({ type: 'rect', x0: series.cpStartUs, x1: series.usefulStartUs });
     expect(boundary).toMatchObject({ type: 'line', x0: series.usefulStartUs, x1: series.usefulStartUs });
     expect(figure.layout.xaxis?.range).toEqual([series.cpStartUs, series.endUs]);
+  });
+
+  it('thins long symbols by min/max buckets without losing an extreme', () => {
+    const long = prepareTimeSamples(generate({ standard: 'lte', bandwidthMHz: 20, symbols: 1, oversampling: 4 }), 0);
+    const figure = buildTimeSamplesFigure(long, plotThemes.light);
+    const magnitude = figure.data[2] as { x: Float64Array; y: Float64Array };
+    expect(magnitude.y.length).toBeLessThanOrEqual(MAX_TIME_POINTS);
+    expect(Math.max(...magnitude.y)).toBe(long.peak.magnitude);
+    expect(Math.min(...(figure.data[0] as { y: Float64Array }).y)).toBe(Math.min(...long.inPhase));
+    // Times stay ascending (each bucket's two points in time order).
+    for (let i = 1; i < magnitude.x.length; i++) expect(magnitude.x[i]!).toBeGreaterThanOrEqual(magnitude.x[i - 1]!);
+    // A short symbol (LTE 1.4 MHz, 137 samples) is drawn sample by sample.
+    expect((buildTimeSamplesFigure(series, plotThemes.light).data[0] as { y: Float64Array }).y.length).toBe(series.inPhase.length);
   });
 
   it('follows the colour scheme', () => {

@@ -1,0 +1,57 @@
+import { createHash } from 'node:crypto';
+import { readFile } from 'node:fs/promises';
+import { expect, test, type Download } from '@playwright/test';
+import { parseWaveformConfig } from '../src/config/configParse';
+import { defaultScenario } from '../src/scenarios/demoScenario';
+import { exportToMemory } from '../src/io/exportMemory';
+import { waitForPlot, watchPage } from './pageHelpers';
+
+// Export from the browser: the dialog previews level, peak, clipping and checksum; the saved SigMF recording parses,
+// its sha512 matches, and its bytes equal what src/io builds in Node for the same configuration (the CLI's path).
+
+test('exports a SigMF recording whose metadata parses and whose sha512 matches', async ({ page, baseURL }, testInfo) => {
+  const watch = watchPage(page, baseURL);
+  await page.goto('/');
+  await waitForPlot(page.getByTestId('time-samples-plot'));
+  await page.getByRole('button', { name: 'Export IQ…' }).click();
+  const dialog = page.getByRole('dialog', { name: 'Export IQ file' });
+  await expect(dialog).toBeVisible();
+  await expect(dialog.getByRole('note', { name: 'Export safety caution' })).toContainText('licence');
+  await dialog.getByLabel('Format').selectOption('sigmf-ci16');
+  await dialog.getByLabel('Level', { exact: true }).selectOption('rms');
+  await dialog.getByLabel('RMS level').fill('-18');
+  const shownSha = dialog.locator('[data-report="sha512"]');
+  await expect(shownSha).toHaveText(/^[0-9a-f]{128}$/, { timeout: 20_000 });
+  await expect(dialog.locator('[data-report="RMS level"]')).toHaveText(/^-18\.0\d dBFS$/);
+  await expect(dialog.locator('[data-report="Clipping"]')).toContainText('none');
+  await dialog.screenshot({ path: testInfo.outputPath('export-dialog.png') });
+
+  const files: Download[] = [];
+  page.on('download', (download) => files.push(download));
+  await dialog.getByRole('button', { name: 'Save files' }).click();
+  await expect.poll(() => files.length).toBe(2);
+  const byName = new Map(files.map((d) => [d.suggestedFilename(), d]));
+  const base = 'saltway-uplink-dft-s-ofdm';
+  expect([...byName.keys()].sort()).toEqual([`${base}.sigmf-data`, `${base}.sigmf-meta`]);
+  const data = await readFile((await byName.get(`${base}.sigmf-data`)!.path())!);
+  const meta = JSON.parse(await readFile((await byName.get(`${base}.sigmf-meta`)!.path())!, 'utf8')) as {
+    global: Record<string, unknown>;
+    captures: unknown[];
+  };
+
+  // SigMF core fields (SigMF specification v1.x, global object): datatype, sample rate, sha512 of the data file.
+  expect(meta.global['core:datatype']).toBe('ci16_le');
+  expect(meta.global['core:sample_rate']).toBe(61.44e6); // 1024 × 15 kHz × 4 (TS 36.211 Table 5.6-1 scaling)
+  const sha = createHash('sha512').update(data).digest('hex');
+  expect(meta.global['core:sha512']).toBe(sha);
+  expect(await shownSha.textContent()).toBe(sha);
+  // ci16_le: 4 bytes per complex sample; 14 symbols of 4 × (1024 + CP) samples = 61 440 samples.
+  expect(data.byteLength).toBe(61440 * 4);
+  expect(meta.captures).toHaveLength(1);
+
+  // The same bytes as src/io's export for this configuration in Node (what `crestline generate` writes).
+  const expected = exportToMemory(parseWaveformConfig(defaultScenario.config), { format: 'sigmf-ci16', level: { mode: 'rms', levelDbfs: -18 } });
+  expect(Buffer.compare(data, Buffer.from(expected.data))).toBe(0);
+  expect(expected.sha512Hex).toBe(sha);
+  expect(watch.consoleErrors).toEqual([]);
+});
