@@ -1,6 +1,7 @@
 import { defineConfig } from '@playwright/test';
 
-const port = 4173;
+// CRESTLINE_E2E_PORT lets a second checkout run its browser tests beside another one on the same machine.
+const port = Number(process.env.CRESTLINE_E2E_PORT ?? 4173);
 const baseURL = `http://127.0.0.1:${port}`;
 
 /** Debian's chromium (scripts/ensureChromium.sh installs it); Playwright downloads no browser. */
