@@ -31,6 +31,12 @@ export { isSuperseded, SupersededError, type WorkerLike };
 /** Workers in the page's pool: the two cores of the machines this runs on (interactive plots and Monte-Carlo blocks share them). */
 export const DEFAULT_POOL_SIZE = 2;
 
+/**
+ * Requests of the configuration being edited (waveform, spectrum, EVM, quick statistics) that one worker may hold:
+ * the one it runs and one waiting in its message queue, so it never idles while the page draws the last answer.
+ */
+export const EDIT_PIPELINE_DEPTH = 2;
+
 export interface EngineResult {
   requestId: number;
   /** The configuration after validation, defaults applied. */
@@ -177,12 +183,13 @@ export function expectResponse<TType extends SuccessResponse['type']>(
 export function createEngineClient(options: EngineClientOptions = {}): EngineClient {
   const pool = createWorkerPool({
     size: options.poolSize ?? DEFAULT_POOL_SIZE,
+    pipeline: EDIT_PIPELINE_DEPTH,
     createWorker: options.createWorker ?? createModuleWorker,
     ...(options.onRestart !== undefined ? { onRestart: options.onRestart } : {}),
   });
 
   const generate = async (config: unknown): Promise<EngineResult> => {
-    const { result } = pool.run({ type: 'generate', config }, { lane: 'generate', priority: 'interactive' });
+    const { result } = pool.run({ type: 'generate', config }, { lane: 'generate', priority: 'interactive', queueable: true });
     const response = expectResponse(await result, 'generated');
     return { requestId: response.id, config: response.config, waveform: rebuildWaveform(response), elapsedMs: response.elapsedMs };
   };
@@ -201,7 +208,8 @@ export function createEngineClient(options: EngineClientOptions = {}): EngineCli
     };
   };
 
-  const route = (routing: RequestRouting | undefined, lane: string) => ({ lane: routing?.lane ?? lane, priority: routing?.priority ?? 'interactive' });
+  // The edited configuration's own requests (no routing given) are short and may queue in a busy worker.
+  const route = (routing: RequestRouting | undefined, lane: string) => ({ lane: routing?.lane ?? lane, priority: routing?.priority ?? 'interactive', queueable: routing === undefined });
 
   const spectrum = async (config: unknown, routing?: RequestRouting): Promise<SpectrumResult> => {
     const { result } = pool.run({ type: 'spectrum', config }, route(routing, 'spectrum'));

@@ -2,7 +2,10 @@
  * A small pool of engine workers behind the typed protocol (page side; no DSP here).
  *
  * - Each worker runs one request at a time; the pool keeps the queue, so a request that a newer one
- *   has superseded is dropped before it is ever sent.
+ *   has superseded is dropped before it is ever sent. With `pipeline` > 1 a busy worker may also hold
+ *   short "queueable" requests in its own message queue (behind such requests only), so it starts the next
+ *   one the moment it finishes instead of waiting for the page to answer — the page may be drawing. A
+ *   request superseded after it was sent runs anyway and its answer is dropped.
  * - Lanes: a request in lane L supersedes the queued and running requests of lane L (the newest
  *   configuration wins). A superseded request settles with SupersededError; a running one's answer
  *   is ignored when it comes.
@@ -39,6 +42,11 @@ export interface TaskOptions {
   priority?: TaskPriority;
   /** Buffers moved to the worker with the request. */
   transfer?: Transferable[];
+  /**
+   * A short interactive request that may wait in a busy worker's own queue, behind other such requests only
+   * (when the pool's `pipeline` allows). Default false.
+   */
+  queueable?: boolean;
 }
 
 export interface WorkerRestartNotice {
@@ -52,6 +60,8 @@ export interface WorkerRestartNotice {
 
 export interface WorkerPoolOptions {
   size: number;
+  /** Requests one worker may hold: the one it runs and those queued behind it (default 1: none queued). */
+  pipeline?: number;
   createWorker: () => WorkerLike;
   onRestart?: (notice: WorkerRestartNotice) => void;
 }
@@ -84,6 +94,7 @@ interface Task {
   body: RequestBody;
   lane: string | undefined;
   priority: TaskPriority;
+  queueable: boolean;
   transfer: Transferable[];
   resolve(response: SuccessResponse): void;
   reject(error: unknown): void;
@@ -93,12 +104,17 @@ interface Task {
 interface Slot {
   worker: WorkerLike | null;
   ready: boolean;
-  task: Task | null;
+  /** Requests sent to the worker and not yet answered, oldest (the running one) first. */
+  tasks: Task[];
 }
 
 export function createWorkerPool(options: WorkerPoolOptions): WorkerPool {
   if (!Number.isInteger(options.size) || options.size < 1) {
     throw new DspError('INVALID_CONFIG', `Worker pool size must be a whole number ≥ 1; got ${options.size}.`);
+  }
+  const pipeline = options.pipeline ?? 1;
+  if (!Number.isInteger(pipeline) || pipeline < 1) {
+    throw new DspError('INVALID_CONFIG', `Worker pool pipeline depth must be a whole number ≥ 1; got ${pipeline}.`);
   }
   const slots: Slot[] = [];
   const queue: Task[] = [];
@@ -107,8 +123,7 @@ export function createWorkerPool(options: WorkerPoolOptions): WorkerPool {
   let disposed = false;
 
   const failProtocol = (slot: Slot, message: string) => {
-    const task = slot.task;
-    slot.task = null;
+    const task = slot.tasks.shift();
     task?.reject(new DspError('INTERNAL', message));
   };
 
@@ -124,9 +139,9 @@ export function createWorkerPool(options: WorkerPoolOptions): WorkerPool {
       slot.ready = true;
       return;
     }
-    const task = slot.task;
-    if (task === null || task.id !== data.id) return; // an answer nobody waits for any more
-    slot.task = null;
+    const index = slot.tasks.findIndex((t) => t.id === data.id);
+    if (index < 0) return; // an answer nobody waits for any more
+    const task = slot.tasks.splice(index, 1)[0]!;
     if (!task.superseded) {
       if (data.type === 'error') task.reject(new DspError(data.code, data.message, data.details));
       else task.resolve(data);
@@ -140,20 +155,15 @@ export function createWorkerPool(options: WorkerPoolOptions): WorkerPool {
     slot.worker = null;
     slot.ready = false;
     restartCount += 1;
-    const task = slot.task;
-    slot.task = null;
     const failedRequestIds: number[] = [];
-    if (task !== null) {
+    slot.tasks.splice(0, slot.tasks.length).forEach((task, position) => {
       failedRequestIds.push(task.id);
-      if (!task.superseded) {
-        task.reject(
-          new DspError(
-            'INTERNAL',
-            `The engine worker crashed (${reason}) while working on request ${task.id}. A fresh worker has been started; run the request again.`,
-          ),
-        );
-      }
-    }
+      if (task.superseded) return;
+      const doing = position === 0 ? 'while working on' : 'while holding';
+      task.reject(
+        new DspError('INTERNAL', `The engine worker crashed (${reason}) ${doing} request ${task.id}. A fresh worker has been started; run the request again.`),
+      );
+    });
     // A worker that was never ready would fail again at once: start the next one only when a request needs it.
     if (wasReady) startWorker(slot);
     options.onRestart?.({ reason, failedRequestIds, restartCount });
@@ -172,29 +182,37 @@ export function createWorkerPool(options: WorkerPoolOptions): WorkerPool {
     return worker;
   }
 
-  const nextTask = (): Task | undefined => {
+  const nextIndex = (): number => {
     const index = queue.findIndex((task) => task.priority === 'interactive');
-    return index >= 0 ? queue.splice(index, 1)[0] : queue.shift();
+    return index >= 0 ? index : 0;
+  };
+
+  /** Where the next request goes: an idle worker, a new one, or (pipelining) the least-loaded worker holding only queueable ones. */
+  const slotFor = (task: Task): Slot | undefined => {
+    let slot = slots.find((s) => s.tasks.length === 0 && s.worker !== null);
+    if (slot === undefined && slots.length < options.size) {
+      slot = { worker: null, ready: false, tasks: [] };
+      slots.push(slot);
+    }
+    slot ??= slots.find((s) => s.tasks.length === 0);
+    if (slot !== undefined || !task.queueable) return slot;
+    const open = slots.filter((s) => s.worker !== null && s.tasks.length < pipeline && s.tasks.every((t) => t.queueable));
+    return open.sort((a, b) => a.tasks.length - b.tasks.length)[0];
   };
 
   function pump(): void {
     if (disposed) return;
     while (queue.length > 0) {
-      let slot = slots.find((s) => s.task === null && s.worker !== null);
-      if (slot === undefined && slots.length < options.size) {
-        slot = { worker: null, ready: false, task: null };
-        slots.push(slot);
-      }
-      slot ??= slots.find((s) => s.task === null);
+      const index = nextIndex();
+      const slot = slotFor(queue[index]!);
       if (slot === undefined) return;
-      const task = nextTask();
-      if (task === undefined) return;
+      const task = queue.splice(index, 1)[0]!;
       const worker = slot.worker ?? startWorker(slot);
-      slot.task = task;
+      slot.tasks.push(task);
       try {
         worker.postMessage({ ...task.body, id: task.id, protocolVersion: PROTOCOL_VERSION } as WorkerRequest, task.transfer);
       } catch (error) {
-        slot.task = null;
+        slot.tasks.splice(slot.tasks.indexOf(task), 1);
         const reason = error instanceof Error ? error.message : String(error);
         task.reject(new DspError('INVALID_CONFIG', `The request could not be sent to the engine: it must be plain JSON data (${reason}).`));
       }
@@ -215,7 +233,7 @@ export function createWorkerPool(options: WorkerPoolOptions): WorkerPool {
         supersede(task);
       }
     }
-    for (const slot of slots) if (slot.task !== null && slot.task.lane === lane) supersede(slot.task);
+    for (const slot of slots) for (const task of slot.tasks) if (task.lane === lane) supersede(task);
   };
 
   const run = (body: RequestBody, taskOptions: TaskOptions = {}): { id: number; result: Promise<SuccessResponse> } => {
@@ -228,6 +246,7 @@ export function createWorkerPool(options: WorkerPoolOptions): WorkerPool {
         body,
         lane: taskOptions.lane,
         priority: taskOptions.priority ?? 'interactive',
+        queueable: (taskOptions.queueable ?? false) && (taskOptions.priority ?? 'interactive') === 'interactive',
         transfer: taskOptions.transfer ?? [],
         resolve,
         reject,
@@ -242,8 +261,7 @@ export function createWorkerPool(options: WorkerPoolOptions): WorkerPool {
     disposed = true;
     for (const task of queue.splice(0, queue.length)) supersede(task);
     for (const slot of slots) {
-      if (slot.task !== null) supersede(slot.task);
-      slot.task = null;
+      for (const task of slot.tasks.splice(0, slot.tasks.length)) supersede(task);
       slot.worker?.terminate();
       slot.worker = null;
     }
@@ -251,7 +269,7 @@ export function createWorkerPool(options: WorkerPoolOptions): WorkerPool {
 
   const load = () => ({
     queued: queue.length,
-    running: slots.filter((slot) => slot.task !== null).length,
+    running: slots.reduce((n, slot) => n + slot.tasks.length, 0),
     workers: slots.filter((slot) => slot.worker !== null).length,
   });
 

@@ -29,11 +29,12 @@ class ScriptedWorker implements WorkerLike {
   }
 }
 
-function setup(size = 2) {
+function setup(size = 2, pipeline = 1) {
   const workers: ScriptedWorker[] = [];
   const notices: WorkerRestartNotice[] = [];
   const pool = createWorkerPool({
     size,
+    pipeline,
     createWorker: () => {
       const worker = new ScriptedWorker(workers.length);
       workers.push(worker);
@@ -154,7 +155,75 @@ describe('worker pool', () => {
     expect(isSuperseded(await runQuiet(pool, generate('c')).result.catch((e: unknown) => e))).toBe(true);
   });
 
-  it('refuses a pool without workers', () => {
+  it('refuses a pool without workers, or a pipeline depth below one', () => {
     expect(() => createWorkerPool({ size: 0, createWorker: () => new ScriptedWorker(0) })).toThrow(/whole number ≥ 1; got 0/);
+    expect(() => createWorkerPool({ size: 1, pipeline: 0, createWorker: () => new ScriptedWorker(0) })).toThrow(/pipeline depth must be a whole number ≥ 1; got 0/);
+  });
+});
+
+describe('worker pool with a pipeline', () => {
+  const quick = { queueable: true } as const;
+
+  it('sends queueable requests to busy workers, least loaded first, up to the depth', () => {
+    const { pool, workers } = setup(2, 2);
+    for (const tag of ['a', 'b', 'c', 'd', 'e']) runQuiet(pool, generate(tag), quick);
+    // a and b start the two workers; c and d wait in their message queues; e waits in the pool.
+    expect(tagsOf(workers[0]!)).toEqual(['a', 'c']);
+    expect(tagsOf(workers[1]!)).toEqual(['b', 'd']);
+    expect(pool.load()).toEqual({ queued: 1, running: 4, workers: 2 });
+    workers[1]!.answer('b done', workers[1]!.received[0]!.id);
+    expect(tagsOf(workers[1]!)).toEqual(['b', 'd', 'e']);
+    pool.dispose();
+  });
+
+  it('answers each request with its own reply when a worker holds two', async () => {
+    const { pool, workers } = setup(1, 2);
+    const a = runQuiet(pool, generate('a'), quick);
+    const b = runQuiet(pool, generate('b'), quick);
+    const [idA, idB] = workers[0]!.received.map((m) => m.id);
+    workers[0]!.answer('a done', idA);
+    workers[0]!.answer('b done', idB);
+    await expect(a.result).rejects.toMatchObject({ message: 'a done' });
+    await expect(b.result).rejects.toMatchObject({ message: 'b done' });
+    pool.dispose();
+  });
+
+  it('never queues behind a request that is not queueable, nor queues one that is not', () => {
+    const { pool, workers } = setup(1, 2);
+    runQuiet(pool, generate('long run block'), { priority: 'background' });
+    runQuiet(pool, generate('edit'), quick);
+    expect(tagsOf(workers[0]!)).toEqual(['long run block']);
+    workers[0]!.answer('block done');
+    expect(tagsOf(workers[0]!)).toEqual(['long run block', 'edit']);
+    runQuiet(pool, generate('export'));
+    expect(tagsOf(workers[0]!)).toEqual(['long run block', 'edit']);
+    pool.dispose();
+  });
+
+  it('drops the answer of a request superseded after it was sent', async () => {
+    const { pool, workers } = setup(1, 2);
+    runQuiet(pool, generate('busy'), quick);
+    const old = runQuiet(pool, generate('old'), { ...quick, lane: 'generate' });
+    const fresh = runQuiet(pool, generate('new'), { ...quick, lane: 'generate' });
+    expect(isSuperseded((await settled(old.result) as { error: unknown }).error)).toBe(true);
+    const [idBusy, idOld] = workers[0]!.received.map((m) => m.id);
+    workers[0]!.answer('busy done', idBusy);
+    workers[0]!.answer('old done', idOld); // computed anyway: the worker had it queued
+    expect(tagsOf(workers[0]!)).toEqual(['busy', 'old', 'new']);
+    workers[0]!.answer('new done');
+    await expect(fresh.result).rejects.toMatchObject({ message: 'new done' });
+    pool.dispose();
+  });
+
+  it('fails every request a crashed worker held, saying which it was running', async () => {
+    const { pool, workers, notices } = setup(1, 2);
+    const a = runQuiet(pool, generate('a'), quick);
+    const b = runQuiet(pool, generate('b'), quick);
+    workers[0]!.ready();
+    workers[0]!.crash('out of memory');
+    await expect(a.result).rejects.toMatchObject({ code: 'INTERNAL', message: expect.stringContaining(`while working on request ${a.id}`) });
+    await expect(b.result).rejects.toMatchObject({ code: 'INTERNAL', message: expect.stringContaining(`while holding request ${b.id}`) });
+    expect(notices[0]).toMatchObject({ failedRequestIds: [a.id, b.id] });
+    pool.dispose();
   });
 });
