@@ -26,9 +26,9 @@ export async function waitForPlot(plot: Locator): Promise<void> {
   await expect(plot).toHaveAttribute('data-render-count', /^[1-9]/, { timeout: 20_000 });
 }
 
-/** Names of the traces Plotly holds on a plot's graph div. */
+/** Names of the traces a plot shows (its complete figure, drawn by Plotly or on the canvas layer). */
 export async function traceNames(plot: Locator): Promise<string[]> {
-  return plot.evaluate((element) => ((element as HTMLElement & { data?: { name?: string }[] }).data ?? []).map((t) => t.name ?? ''));
+  return plot.evaluate((element) => ((element as HTMLElement & { figureData?: { name?: string }[] }).figureData ?? []).map((t) => t.name ?? ''));
 }
 
 /** The value cell of a metric in the measurements panel. */

@@ -25,7 +25,7 @@ test('opens the demo: every panel draws from the workers, no console errors, no 
   await expect(page.locator('.summary-list').first()).toBeVisible();
   await expect(page.getByRole('region', { name: 'Result' })).toContainText('40 RB from RB 5, 16QAM');
   const timeTraces = await page.getByTestId('time-samples-plot').evaluate((element) =>
-    ((element as HTMLElement & { data?: { name: string; x: ArrayLike<number> }[] }).data ?? []).map((t) => `${t.name}:${t.x.length}`),
+    ((element as HTMLElement & { figureData?: { name: string; x: ArrayLike<number> }[] }).figureData ?? []).map((t) => `${t.name}:${t.x.length}`),
   );
   // Symbol 0 spans 4 × (1024 + 80) = 4416 samples (TS 36.211 Table 5.6-1, scaled to N_FFT 1024 and 4×), drawn as
   // min/max buckets of 9 samples: 2 × ⌈4416/9⌉ = 982 points per trace.
@@ -110,7 +110,7 @@ test('follows waveform and modulation changes in the plots and the measurements'
   await expect
     .poll(() =>
       constellation.evaluate((element) => {
-        const trace = ((element as HTMLElement & { data?: { x: ArrayLike<number>; y: ArrayLike<number> }[] }).data ?? [])[0];
+        const trace = ((element as HTMLElement & { figureData?: { x: ArrayLike<number>; y: ArrayLike<number> }[] }).figureData ?? [])[0];
         const seen = new Set<string>();
         for (let i = 0; i < (trace?.x.length ?? 0); i++) seen.add(`${Number(trace!.x[i]).toFixed(6)},${Number(trace!.y[i]).toFixed(6)}`);
         return seen.size;

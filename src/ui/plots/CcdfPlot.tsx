@@ -22,5 +22,5 @@ export function CcdfPlot() {
       theme,
     );
   }, [result, note, statistic, scheme, pinned]);
-  return <PlotlyFigure figure={figure} label="CCDF on a log-probability axis" testId="ccdf-plot" epoch={seq} />;
+  return <PlotlyFigure drawing="canvas" figure={figure} label="CCDF on a log-probability axis" testId="ccdf-plot" epoch={seq} />;
 }

@@ -41,5 +41,5 @@ export function ConstellationPlot() {
   }, [ready, result, symbolIndex, scheme, evm]);
   if (built !== undefined) shown.current = built;
   const figure = shown.current;
-  return <PlotlyFigure figure={figure} label={`Constellation of OFDM symbol ${symbolIndex}`} epoch={complete ? epoch : epoch - 1} testId="constellation-plot" />;
+  return <PlotlyFigure drawing="canvas" figure={figure} label={`Constellation of OFDM symbol ${symbolIndex}`} epoch={complete ? epoch : epoch - 1} testId="constellation-plot" />;
 }

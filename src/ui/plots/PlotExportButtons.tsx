@@ -1,8 +1,23 @@
 import { useState } from 'react';
 import { downloadFile } from '../download';
 import { figureCsv } from '../plotData/figureCsv';
-import { registeredFigure } from './figureRegistry';
+import { registeredFigure, type RegisteredFigure } from './figureRegistry';
 import { loadPlotly } from './loadPlotly';
+
+/**
+ * What to hand Plotly's image export: the graph div itself, or — for a canvas-drawn plot, whose traces Plotly does not
+ * hold — the complete figure at the axis ranges on screen (so a zoomed view exports as seen, every trace as vectors).
+ */
+function imageSource(entry: RegisteredFigure): HTMLDivElement | { data: RegisteredFigure['figure']['data']; layout: RegisteredFigure['figure']['layout'] } {
+  if (entry.box.dataset.drawing !== 'canvas') return entry.box;
+  const shown = (entry.box as HTMLDivElement & { _fullLayout?: Record<string, { range?: unknown } | undefined> })._fullLayout ?? {};
+  const layout: Record<string, unknown> = { ...entry.figure.layout };
+  for (const key of Object.keys(layout)) {
+    const range = /^[xy]axis\d*$/.test(key) ? shown[key]?.range : undefined;
+    if (Array.isArray(range)) layout[key] = { ...(layout[key] as object), range: [...range], autorange: false };
+  }
+  return { data: entry.figure.data, layout: layout as RegisteredFigure['figure']['layout'] };
+}
 
 /** PNG, SVG (Plotly's own image export) and CSV (the traces) of one plot. */
 export function PlotExportButtons({ plotId, fileStem, title }: { plotId: string; fileStem: string; title: string }) {
@@ -12,7 +27,7 @@ export function PlotExportButtons({ plotId, fileStem, title }: { plotId: string;
     if (entry === undefined) return setMessage('Nothing drawn yet.');
     try {
       const Plotly = await loadPlotly();
-      await Plotly.downloadImage(entry.box, { format, filename: fileStem, width: entry.box.clientWidth, height: entry.box.clientHeight });
+      await Plotly.downloadImage(imageSource(entry) as HTMLDivElement, { format, filename: fileStem, width: entry.box.clientWidth, height: entry.box.clientHeight });
       setMessage(null);
     } catch (error) {
       setMessage(`Image export failed: ${error instanceof Error ? error.message : String(error)}`);

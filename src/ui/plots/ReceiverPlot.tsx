@@ -9,5 +9,5 @@ export function ReceiverPlot() {
   const evm = useAppStore((state) => state.evm);
   const scheme = useAppStore((state) => state.colorScheme);
   const figure = useMemo(() => (evm.data === null ? null : buildReceiverFigure(evm.data.evm, plotThemes[scheme])), [evm.data, scheme]);
-  return <PlotlyFigure figure={figure} label="EVM per subcarrier and per symbol" testId="receiver-plot" epoch={evm.seq} />;
+  return <PlotlyFigure drawing="canvas" figure={figure} label="EVM per subcarrier and per symbol" testId="receiver-plot" epoch={evm.seq} />;
 }

@@ -34,5 +34,5 @@ export function SpectrumPlot() {
       theme,
     );
   }, [spectrum.data, scheme, overlays]);
-  return <PlotlyFigure figure={figure} label="Power spectral density with ACLR channels" testId="spectrum-plot" epoch={spectrum.seq} />;
+  return <PlotlyFigure drawing="canvas" figure={figure} label="Power spectral density with ACLR channels" testId="spectrum-plot" epoch={spectrum.seq} />;
 }

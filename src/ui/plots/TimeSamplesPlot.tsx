@@ -14,5 +14,5 @@ export function TimeSamplesPlot() {
     if (waveform === null || symbolIndex >= waveform.symbolLayout.length) return null;
     return buildTimeSamplesFigure(prepareTimeSamples(waveform, symbolIndex), plotThemes[scheme]);
   }, [waveform, symbolIndex, scheme]);
-  return <PlotlyFigure figure={figure} label={`Time samples of OFDM symbol ${symbolIndex}`} epoch={epoch} testId="time-samples-plot" />;
+  return <PlotlyFigure drawing="canvas" figure={figure} label={`Time samples of OFDM symbol ${symbolIndex}`} epoch={epoch} testId="time-samples-plot" />;
 }
