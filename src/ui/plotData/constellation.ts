@@ -95,7 +95,11 @@ export function buildConstellationFigure(
   const base = baseLayout(theme);
   let maxAbs = series.maxAbsComponent;
   if (received !== null) for (let i = 0; i < received.inPhase.length; i++) maxAbs = Math.max(maxAbs, Math.abs(received.inPhase[i] ?? 0), Math.abs(received.quadrature[i] ?? 0));
-  const limit = Math.max(Math.min(maxAbs, 2 * series.maxAbsComponent), 1e-12) * 1.15;
+  // 15 % beyond the outermost point, rounded up to a tenth of the ideal outermost component so received noise
+  // does not move the axes from one configuration to the next.
+  const reach = Math.max(Math.min(maxAbs, 2 * series.maxAbsComponent), 1e-12) * 1.15;
+  const grain = series.maxAbsComponent > 0 ? series.maxAbsComponent / 10 : reach / 10;
+  const limit = Math.ceil(reach / grain - 1e-9) * grain;
   const ideal = distinctIdealPoints(series);
   const data: Data[] = [
     {

@@ -4,6 +4,7 @@
  */
 import type { Data, Layout } from 'plotly.js-dist-min';
 import type { EngineWaveform } from '../../worker/protocol';
+import { niceCeil } from './canvasTraces';
 import { baseLayout, type PlotTheme } from './plotTheme';
 import { locateSymbolSamples } from './symbolWindow';
 
@@ -93,6 +94,12 @@ export function minMaxDecimate(x: Float64Array, y: Float64Array, maxPoints = MAX
   return { x: Float64Array.from(outX), y: Float64Array.from(outY) };
 }
 
+/** ±(peak + 5 %), rounded up to a nice number; ±1 when there is no signal. */
+export function symmetricRange(peak: number): [number, number] {
+  const limit = peak > 0 && Number.isFinite(peak) ? niceCeil(peak * 1.05) : 1;
+  return [-limit, limit];
+}
+
 export function buildTimeSamplesFigure(series: TimeSamplesSeries, theme: PlotTheme): { data: Data[]; layout: Partial<Layout> } {
   const base = baseLayout(theme);
   const line = (name: string, values: Float64Array, color: string, width: number): Data => {
@@ -131,7 +138,8 @@ export function buildTimeSamplesFigure(series: TimeSamplesSeries, theme: PlotThe
         xanchor: 'left',
       },
       xaxis: { ...base.xaxis, title: { text: 'time from waveform start (µs)' }, range: [series.cpStartUs, series.endUs] },
-      yaxis: { ...base.yaxis, title: { text: 'amplitude (formula scale)' } },
+      // Symmetric about zero and rounded up to 1, 2, 2.5 or 5 × 10^k: the axis stays put while the peak moves a little.
+      yaxis: { ...base.yaxis, title: { text: 'amplitude (formula scale)' }, range: symmetricRange(series.peak.magnitude) },
       shapes: [
         {
           type: 'rect',

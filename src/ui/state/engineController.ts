@@ -19,6 +19,15 @@ export interface EngineControllerOptions {
 const describe = (error: unknown) => (error instanceof Error ? error.message : String(error));
 
 /**
+ * User Timing mark "crestline:answer:<kind>:<seq>" when an answer for the edited configuration arrives, with the
+ * engine's own time in its detail: the responsiveness report splits the update time into engine and drawing with it.
+ */
+function markAnswer(kind: string, seq: number, engineMs?: number): void {
+  if (typeof performance === 'undefined' || typeof performance.mark !== 'function') return;
+  performance.mark(`crestline:answer:${kind}:${seq}`, { detail: { engineMs: engineMs ?? null } });
+}
+
+/**
  * The quick statistics run of every draft: one engine block of random symbols at ≥ 4× oversampling, single
  * precision (the WebAssembly FFT when it has loaded). Enough for the power CCDF to ~1e-4 on large grids; the long
  * run (ccdfRunController.ts) goes further.
@@ -59,6 +68,7 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
     state.measurementStarted('evm');
     client.evm(draft).then(
       (result) => {
+        markAnswer('evm', seq, result.elapsedMs);
         if (current(draft)) store.getState().measurementSucceeded('evm', result, seq);
       },
       (error: unknown) => {
@@ -68,6 +78,7 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
     state.requestStarted();
     client.generate(draft).then(
       (result) => {
+        markAnswer('waveform', seq, result.elapsedMs);
         if (current(draft)) store.getState().requestSucceeded(result, seq);
       },
       (error: unknown) => {
@@ -85,6 +96,7 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
     state.measurementStarted('spectrum');
     client.spectrum(draft).then(
       (result) => {
+        markAnswer('spectrum', seq, result.elapsedMs);
         if (current(draft)) store.getState().measurementSucceeded('spectrum', result, seq);
       },
       (error: unknown) => {
@@ -94,6 +106,7 @@ export function connectEngine(store: AppStore, client: EngineClient, options: En
     state.measurementStarted('ccdf');
     client.ccdf(draft, QUICK_CCDF).then(
       (result) => {
+        markAnswer('ccdf', seq);
         if (current(draft)) store.getState().measurementSucceeded('ccdf', result, seq);
       },
       (error: unknown) => {

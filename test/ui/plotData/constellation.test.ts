@@ -49,7 +49,9 @@ describe('buildConstellationFigure', () => {
   it('uses a square, symmetric view with equal axis scales', () => {
     const waveform = generate({ standard: 'lte', bandwidthMHz: 1.4, symbols: 1 });
     const figure = buildConstellationFigure(prepareConstellation(waveform, 0), plotThemes.light, 'QPSK');
-    const limit = Math.SQRT1_2 * 1.15;
+    // QPSK's outermost component is 1/√2 (TS 36.211 Table 7.1.2-1); 15 % beyond it is 1.15/√2, rounded up to tenths
+    // of 1/√2: 1.2/√2.
+    const limit = Math.SQRT1_2 * 1.2;
     expectCloseArray((figure.layout.xaxis?.range ?? []).map(Number), [-limit, limit], absTol, 'x range');
     expectCloseArray((figure.layout.yaxis?.range ?? []).map(Number), [-limit, limit], absTol, 'y range');
     expect(figure.layout.yaxis).toMatchObject({ scaleanchor: 'x', scaleratio: 1 });
@@ -66,7 +68,8 @@ describe('buildConstellationFigure', () => {
     expectCloseArray(points!.inPhase, ideal.inPhase.map((v) => 1.3 * v), absTol, 'received I of symbol 1');
     const figure = buildConstellationFigure(ideal, plotThemes.light, 'QPSK', { ...points!, evmPercent: 30 });
     expect(figure.data.map((t) => t.name)).toEqual(['ideal', 'received (EVM 30.00 %)']);
-    expectCloseArray((figure.layout.xaxis?.range ?? []).map(Number), [-1.3 * Math.SQRT1_2 * 1.15, 1.3 * Math.SQRT1_2 * 1.15], absTol, 'x range');
+    // 1.3 × 1.15 = 1.495 tenths-of-1/√2 steps → 1.5/√2.
+    expectCloseArray((figure.layout.xaxis?.range ?? []).map(Number), [-1.5 * Math.SQRT1_2, 1.5 * Math.SQRT1_2], absTol, 'x range');
     // A receiver constellation shorter than the grid expects (e.g. another configuration) is not drawn.
     expect(prepareReceivedConstellation(receivedIq.subarray(0, 10), waveform, 1)).toBeNull();
   });
