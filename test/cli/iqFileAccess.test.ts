@@ -5,17 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { hasSigmfSuffix, regularFileSizeBytes, sigmfPathsOf } from '../../src/cli/iqFileAccess';
 import { readIqFile } from '../../src/cli/readIqFile';
 import { readRecording } from '../../src/cli/readRecording';
-import { DspError } from '../../src/dsp/errors';
-
-function errorOf(read: () => unknown): DspError {
-  try {
-    read();
-  } catch (err) {
-    if (err instanceof DspError) return err;
-    throw err;
-  }
-  throw new Error('expected a DspError');
-}
+import { dspErrorOf } from '../helpers/dspErrorOf';
 
 describe('iqFileAccess: the SigMF pair and file sizes both IQ readers use', () => {
   it('names BASE.sigmf-meta and BASE.sigmf-data from either file or from BASE', () => {
@@ -39,10 +29,10 @@ describe('iqFileAccess: the SigMF pair and file sizes both IQ readers use', () =
     const dir = mkdtempSync(join(tmpdir(), 'crestline-readers-'));
     mkdirSync(join(dir, 'folder.sigmf-data'));
     // Messages as the readers wrote them before sharing this module (test/cli/analyze.test.ts, inspect.test.ts).
-    const recording = errorOf(() => readRecording(join(dir, 'folder.sigmf-data'), 1e6));
+    const recording = dspErrorOf(() => readRecording(join(dir, 'folder.sigmf-data'), 1e6));
     expect(recording.message).toBe(`Cannot read IQ file "${join(dir, 'folder.sigmf-data')}": not a regular file`);
     expect(recording.code).toBe('INVALID_FILE');
-    const missing = errorOf(() => readIqFile(join(dir, 'nothing.sigmf-meta')));
+    const missing = dspErrorOf(() => readIqFile(join(dir, 'nothing.sigmf-meta')));
     expect(missing.message).toMatch(new RegExp(`^${join(dir, 'nothing.sigmf-meta')}: cannot open the SigMF metadata file \\(ENOENT.*\\)\\.$`));
     expect(missing.details).toEqual({ problem: 'missing' });
   });

@@ -3,7 +3,7 @@ import { applyMultipathChannel, createMultipathChannel, tapFrequencyResponses } 
 import { applyFractionalDelay, designFractionalDelay } from '../../../src/dsp/channel/fractionalDelay';
 import { applyFrequencyOffset, applyTimingOffset } from '../../../src/dsp/channel/impairments';
 import { createRng, deriveBlockSeed } from '../../../src/dsp/data/rng';
-import { DspError } from '../../../src/dsp/errors';
+import { dspErrorOf } from '../../helpers/dspErrorOf';
 import { TEST_SEED } from '../../helpers/seed';
 
 function tone(frequencyHz: number, sampleRateHz: number, n: number, delaySamples = 0): Float64Array {
@@ -27,26 +27,17 @@ describe('fractional delay (band-limited interpolation, common practice)', () =>
   it('names the buffer or option, the value given and what is allowed when a length is wrong', () => {
     // Interleaved IQ: 2 values per complex sample (src/dsp complex-buffer convention, common practice).
     const filter = designFractionalDelay(0.5);
-    const errorOf = (run: () => unknown): DspError => {
-      try {
-        run();
-      } catch (err) {
-        if (err instanceof DspError) return err;
-        throw err;
-      }
-      throw new Error('expected a DspError');
-    };
-    const odd = errorOf(() => applyFractionalDelay(filter, new Float64Array(8), new Float64Array(7)));
+    const odd = dspErrorOf(() => applyFractionalDelay(filter, new Float64Array(8), new Float64Array(7)));
     expect(odd.code).toBe('LENGTH_MISMATCH');
     expect(odd.message).toBe('applyFractionalDelay outIq has 7 values; allowed: an even number (2 per complex sample, re then im), e.g. 6 or 8.');
-    expect(errorOf(() => applyFractionalDelay(filter, new Float64Array(5), new Float64Array(8))).message).toMatch(/^applyFractionalDelay inIq has 5 values; allowed: an even number/);
+    expect(dspErrorOf(() => applyFractionalDelay(filter, new Float64Array(5), new Float64Array(8))).message).toMatch(/^applyFractionalDelay inIq has 5 values; allowed: an even number/);
     // Any even output length is allowed: the output covers as many samples as it holds (fractionalDelay.ts doc).
     expect(applyFractionalDelay(filter, new Float64Array(8), new Float64Array(12)).length).toBe(12);
     const same = new Float64Array(8);
-    expect(errorOf(() => applyFractionalDelay(filter, same, same)).code).toBe('INTERNAL');
+    expect(dspErrorOf(() => applyFractionalDelay(filter, same, same)).code).toBe('INTERNAL');
     // H = halfLength sets the 2H taps of a fractional delay (fractionalDelay.ts); it must be a whole number ≥ 1.
     for (const halfLength of [0, 2.5, Number.NaN]) {
-      const bad = errorOf(() => designFractionalDelay(0.5, halfLength));
+      const bad = dspErrorOf(() => designFractionalDelay(0.5, halfLength));
       expect(bad.code, `halfLength ${halfLength}`).toBe('INVALID_CONFIG');
       expect(bad.message).toBe(`Fractional-delay halfLength ${halfLength} must be a whole number ≥ 1 (the filter has 2·halfLength taps; default 16).`);
     }
