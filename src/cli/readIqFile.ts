@@ -1,10 +1,11 @@
-import { closeSync, existsSync, openSync, readFileSync, readSync, statSync } from 'node:fs';
+import { closeSync, existsSync, openSync, readFileSync, readSync } from 'node:fs';
 import { DspError } from '../dsp/errors';
 import { createIqDataReader, describeBareRawSource, describeRawSource, describeSigmfSource, describeWavSource, readCsvSource, type IqReadResult, type IqSource } from '../io/importIq';
 import type { IqDatatype } from '../io/iqDatatypes';
 import { MAX_CSV_SAMPLES } from '../io/csvIq';
 import { MAX_SIDECAR_BYTES } from '../io/iqSidecar';
 import { MAX_META_BYTES } from '../io/sigmfMeta';
+import { hasSigmfSuffix, regularFileSizeBytes, sigmfPathsOf } from './iqFileAccess';
 import { createNodeSha512 } from './nodeHash';
 
 /** Raw formats that can be read without a sidecar (`--raw-format`). */
@@ -26,10 +27,8 @@ export function readIqFile(path: string, options: ReadIqFileOptions = {}): { sou
       problem: 'unsupported',
     });
   }
-  if (lower.endsWith('.sigmf-meta') || lower.endsWith('.sigmf-data')) {
-    const base = path.slice(0, -'.sigmf-meta'.length);
-    const metaPath = `${base}.sigmf-meta`;
-    const dataPath = `${base}.sigmf-data`;
+  if (hasSigmfSuffix(path)) {
+    const { metaPath, dataPath } = sigmfPathsOf(path);
     const metaText = readText(metaPath, MAX_META_BYTES, 'SigMF metadata');
     const source = describeSigmfSource(metaText, metaPath, dataPath, fileSize(dataPath, 'SigMF data'));
     return { source, result: streamData(dataPath, source, options) };
@@ -98,13 +97,10 @@ function streamData(dataPath: string, source: IqSource, options: ReadIqFileOptio
 }
 
 function fileSize(path: string, what: string): number {
-  try {
-    const st = statSync(path);
-    if (!st.isFile()) throw new Error('not a regular file');
-    return st.size;
-  } catch (err) {
-    throw new DspError('INVALID_FILE', `${path}: cannot open the ${what} file (${(err as Error).message}).`, { problem: 'missing' });
-  }
+  return regularFileSizeBytes(
+    path,
+    (reason) => new DspError('INVALID_FILE', `${path}: cannot open the ${what} file (${reason}).`, { problem: 'missing' }),
+  );
 }
 
 function readText(path: string, limit: number, what: string): string {

@@ -1,7 +1,8 @@
-import { existsSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { DspError } from '../dsp/errors';
 import { createIqDataReader, describeBareRawSource, describeSigmfSource, type IqSource } from '../io/importIq';
 import { MAX_META_BYTES } from '../io/sigmfMeta';
+import { regularFileSizeBytes, sigmfPathsOf } from './iqFileAccess';
 import { createNodeSha512 } from './nodeHash';
 
 /** An IQ recording read whole for analysis: samples (full scale ±1.0 for integer types) and what the metadata said. */
@@ -18,9 +19,9 @@ export interface Recording {
  * @throws DspError INVALID_FILE naming the file and the problem
  */
 export function readRecording(path: string, fallbackRateHz: number): Recording {
-  const base = path.replace(/\.sigmf-(data|meta)$/, '');
-  const metaPath = `${base}.sigmf-meta`;
-  const dataPath = existsSync(`${base}.sigmf-data`) ? `${base}.sigmf-data` : path;
+  const pair = sigmfPathsOf(path);
+  const metaPath = pair.metaPath;
+  const dataPath = existsSync(pair.dataPath) ? pair.dataPath : path;
   const size = fileSize(dataPath);
   const warnings: string[] = [];
   let source: IqSource;
@@ -38,11 +39,5 @@ export function readRecording(path: string, fallbackRateHz: number): Recording {
 }
 
 function fileSize(path: string): number {
-  try {
-    const st = statSync(path);
-    if (!st.isFile()) throw new Error('not a regular file');
-    return st.size;
-  } catch (err) {
-    throw new DspError('INVALID_FILE', `Cannot read IQ file "${path}": ${(err as Error).message}`);
-  }
+  return regularFileSizeBytes(path, (reason) => new DspError('INVALID_FILE', `Cannot read IQ file "${path}": ${reason}`));
 }

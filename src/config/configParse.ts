@@ -1,4 +1,5 @@
 import { DspError } from '../dsp/errors';
+import { parseJsonText } from '../dsp/jsonText';
 import { validateWaveformConfig } from '../dsp/waveform/waveformPlan';
 import type { WaveformConfig } from './schema';
 import { checkConfigSchema } from './schemaIssues';
@@ -36,11 +37,5 @@ export function defaultWaveformConfig(): WaveformConfig {
 
 /** Parses JSON text; a syntax error becomes INVALID_CONFIG naming `sourceName`. */
 export function parseWaveformConfigJson(text: string, sourceName = 'configuration'): WaveformConfig {
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
-  } catch (err) {
-    throw new DspError('INVALID_CONFIG', `${sourceName} is not valid JSON: ${(err as Error).message}`);
-  }
-  return parseWaveformConfig(json);
+  return parseWaveformConfig(parseJsonText(text, sourceName, 'INVALID_CONFIG'));
 }

@@ -38,6 +38,21 @@ export function assertLength(buffer: { length: number }, expected: number, what:
 }
 
 /**
+ * Throws LENGTH_MISMATCH unless `buffer` holds whole complex samples: an even number of values, re and im of each
+ * sample interleaved. For blocks that accept any number of samples.
+ * @param what names the function and the buffer in the message, e.g. 'applyFractionalDelay outIq'
+ */
+export function assertWholeSamples(buffer: { length: number }, what: string): void {
+  if (buffer.length % 2 !== 0) {
+    throw new DspError(
+      'LENGTH_MISMATCH',
+      `${what} has ${buffer.length} values; allowed: an even number (2 per complex sample, re then im), e.g. ${buffer.length - 1} or ${buffer.length + 1}.`,
+      { actual: buffer.length },
+    );
+  }
+}
+
+/**
  * Checks a sample-by-sample block's output buffer: LENGTH_MISMATCH unless it has `inIq.length` values ("`what`
  * output has …"), INTERNAL when it is the input buffer itself (no aliasing unless a block documents it).
  * @param what names the block in the messages, e.g. 'Amplifier'

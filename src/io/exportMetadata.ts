@@ -1,7 +1,7 @@
 import type { ResolvedLevel } from '../dsp/level/levelScale';
 import type { CcdfPoint, PowerSummary } from '../dsp/level/powerStats';
+import { describeConfig } from '../dsp/waveform/configDescription';
 import { symbolLayoutOf } from '../dsp/waveform/waveformPlan';
-import { describeConfig } from './describeConfig';
 import type { ExportPlan } from './exportPlan';
 import { quantisationSnrDb, type QuantisationTally } from './iqCodecs';
 import { datatypeInfo } from './iqDatatypes';

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { DspError } from '../dsp/errors';
+import { parseJsonText } from '../dsp/jsonText';
 import { READABLE_DATATYPES } from './iqDatatypes';
 
 /**
@@ -50,12 +51,7 @@ export type IqSidecar = z.output<typeof iqSidecarSchema>;
  *   a sample rate that is not positive and finite ("sample-rate")
  */
 export function parseIqSidecar(text: string, sourceName: string): IqSidecar {
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
-  } catch (err) {
-    throw new DspError('INVALID_FILE', `${sourceName}: not valid JSON (${(err as Error).message}).`, { problem: 'json' });
-  }
+  const json = parseJsonText(text, sourceName, 'INVALID_FILE', { problem: 'json' });
   const parsed = iqSidecarSchema.safeParse(json);
   if (!parsed.success) {
     const issues = parsed.error.issues.map((i) => `${i.path.length ? i.path.join('.') : '(top level)'}: ${i.message}`);

@@ -1,4 +1,5 @@
 import { DspError } from '../dsp/errors';
+import { parseJsonText } from '../dsp/jsonText';
 import { isIqDatatype, READABLE_DATATYPES, type IqDatatype } from './iqDatatypes';
 
 /**
@@ -95,12 +96,7 @@ export function parseSigmfMeta(text: string, sourceName: string): SigmfDescripto
   const fail = (problem: string, message: string): never => {
     throw new DspError('INVALID_FILE', `${sourceName}: ${message}`, { problem });
   };
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
-  } catch (err) {
-    return fail('json', `not valid JSON (${(err as Error).message}).`);
-  }
+  const json = parseJsonText(text, sourceName, 'INVALID_FILE', { problem: 'json' });
   if (!isObject(json)) return fail('structure', 'the metadata must be a JSON object with "global", "captures" and "annotations".');
   for (const key of ['global', 'captures', 'annotations']) if (!(key in json)) fail('structure', `the required top-level key "${key}" is missing.`);
   const extra = Object.keys(json).filter((k) => !['global', 'captures', 'annotations'].includes(k));

@@ -65,6 +65,6 @@ describe('waveform configuration', () => {
   });
 
   it('reports bad JSON with the source named', () => {
-    expect(() => parseWaveformConfigJson('{"standard": lte}', 'cfg.json')).toThrow(/cfg.json is not valid JSON/);
+    expect(() => parseWaveformConfigJson('{"standard": lte}', 'cfg.json')).toThrow(/^cfg\.json: not valid JSON \(.+\)\.$/);
   });
 });

@@ -2,11 +2,11 @@ import type { Command } from 'commander';
 import { DspError } from '../../dsp/errors';
 import { countErrors } from '../../dsp/receiver/errorCounting';
 import { measureEvm } from '../../dsp/receiver/evmMeasurement';
+import { describeConfig } from '../../dsp/waveform/configDescription';
 import { generateWaveform } from '../../dsp/waveform/waveformGenerator';
 import type { CliIo } from '../main';
 import { readConfigFile } from '../readConfig';
 import { readRecording } from '../readRecording';
-import { describeConfig } from './generate';
 
 interface AnalyzeOptions {
   config: string;

@@ -2,9 +2,9 @@ import type { Command } from 'commander';
 import { analyzeBackoff, type BackoffAnalysis } from '../../dsp/backoff/backoffAnalysis';
 import { MAX_SYMBOLS, type WaveformConfig } from '../../config/schema';
 import { DspError } from '../../dsp/errors';
+import { describeConfig } from '../../dsp/waveform/configDescription';
 import type { CliIo } from '../main';
 import { readConfigFile } from '../readConfig';
-import { describeConfig } from './generate';
 import { backoffJson, backoffText } from './backoffReport';
 import { amplifierFromOptions, optionalNumber, parseAclrLimit, type PaOptions } from './paModelOption';
 

@@ -1,7 +1,6 @@
 import type { Command } from 'commander';
 import { DspError } from '../../dsp/errors';
 import type { LevelSpec } from '../../dsp/level/levelScale';
-import { describeConfig } from '../../io/describeConfig';
 import { EXPORT_FORMATS, isExportFormat } from '../../io/exportFormats';
 import { isDefaultExport, parseExportOptions, type ExportOptionsInput } from '../../io/exportOptions';
 import { planExport } from '../../io/exportPlan';
@@ -9,8 +8,6 @@ import type { CliIo } from '../main';
 import { createProgressPrinter } from '../progress';
 import { readConfigFile } from '../readConfig';
 import { streamExportToFiles } from '../streamExport';
-
-export { describeConfig };
 
 /** Printed on stderr for every export other than the plain default file. */
 export const EXPORT_CAUTION =

@@ -2,10 +2,10 @@ import type { Command } from 'commander';
 import type { DelayProfileName } from '../../dsp/channel/delayProfiles';
 import { DspError } from '../../dsp/errors';
 import { runLinkSimulation } from '../../dsp/link/linkSimulation';
+import { describeConfig } from '../../dsp/waveform/configDescription';
 import { generateWaveform } from '../../dsp/waveform/waveformGenerator';
 import type { CliIo } from '../main';
 import { readConfigFile } from '../readConfig';
-import { describeConfig } from './generate';
 
 interface LinkOptions {
   config: string;

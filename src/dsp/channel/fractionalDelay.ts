@@ -1,4 +1,4 @@
-import { assertLength, DspError } from '../errors';
+import { assertWholeSamples, DspError } from '../errors';
 
 /**
  * Fractional delay by band-limited interpolation: y[n] = x(n − d) = Σ_m h[m]·x[n − D − m], D = ⌊d⌋,
@@ -14,10 +14,20 @@ export interface FractionalDelayFilter {
   readonly taps: Float64Array;
 }
 
-/** Designs the interpolator for a delay of `delaySamples` (≥ 0) with half-length H = `halfLength` taps. */
+/**
+ * Designs the interpolator for a delay of `delaySamples` (≥ 0) with half-length H = `halfLength` (a whole number ≥ 1;
+ * a fractional delay gets 2H taps, a whole-sample delay one).
+ */
 export function designFractionalDelay(delaySamples: number, halfLength = 16): FractionalDelayFilter {
   if (!(delaySamples >= 0) || !Number.isFinite(delaySamples)) {
     throw new DspError('INVALID_CONFIG', `Delay ${delaySamples} samples must be a finite number ≥ 0.`);
+  }
+  if (!Number.isInteger(halfLength) || halfLength < 1) {
+    throw new DspError(
+      'INVALID_CONFIG',
+      `Fractional-delay halfLength ${halfLength} must be a whole number ≥ 1 (the filter has 2·halfLength taps; default 16).`,
+      { field: 'halfLength' },
+    );
   }
   const whole = Math.floor(delaySamples);
   const frac = delaySamples - whole;
@@ -37,10 +47,15 @@ export function designFractionalDelay(delaySamples: number, halfLength = 16): Fr
 
 /**
  * Filters a complex signal: out[n] = Σ_i taps[i]·in[n − firstIndex − i], with in[·] = 0 outside the buffer.
- * @param outIq any length (the output covers samples 0…outIq.length/2 − 1); not the same buffer as `inIq`
+ * @param inIq any number of samples (an even number of values)
+ * @param outIq any number of samples (an even number of values; the output covers samples 0…outIq.length/2 − 1); not
+ *   the same buffer as `inIq`
  */
 export function applyFractionalDelay(filter: FractionalDelayFilter, inIq: Float64Array, outIq: Float64Array): Float64Array {
-  assertLength(outIq, outIq.length - (outIq.length % 2), 'Delayed output');
+  assertWholeSamples(inIq, 'applyFractionalDelay inIq');
+  assertWholeSamples(outIq, 'applyFractionalDelay outIq');
+  // Each output sample reads several input samples, so writing in place would read already-delayed values.
+  if (inIq === outIq) throw new DspError('INTERNAL', 'applyFractionalDelay inIq and outIq must be different buffers.');
   const numIn = inIq.length / 2;
   const numOut = outIq.length / 2;
   const { taps, firstIndex } = filter;

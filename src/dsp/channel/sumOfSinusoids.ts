@@ -1,4 +1,4 @@
-import { assertLength, DspError } from '../errors';
+import { assertWholeSamples, DspError } from '../errors';
 import type { Rng } from '../data/rng';
 
 /**
@@ -42,7 +42,7 @@ export function createSosFading(dopplerHz: number, numSinusoids: number, rng: Rn
  * @param outIq 2M values
  */
 export function fillSosFading(fading: SosFading, startTimeS: number, sampleRateHz: number, outIq: Float64Array): Float64Array {
-  assertLength(outIq, outIq.length - (outIq.length % 2), 'Fading output');
+  assertWholeSamples(outIq, 'fillSosFading outIq');
   const numSamples = outIq.length / 2;
   outIq.fill(0);
   const scale = 1 / Math.sqrt(fading.cosAlpha.length);

@@ -2,6 +2,7 @@ import { LEVEL_KEYS, LEVEL_PROBABILITIES, levelsFromHistogram, type LevelEstimat
 import { cubicMetricFromMoments, type CubicMetricOptions } from '../metrics/cubicMetric';
 import { ofdmPaprAtProbabilityDb, VAN_NEE_ALPHA_OVERSAMPLED } from '../metrics/paprTheory';
 import { powerLevelsFromStats } from '../metrics/powerLevels';
+import { describeWaveform } from '../waveform/configDescription';
 import type { MeasurementContext, SpectrumSummary } from './measurementContext';
 import { runTotals, type RunStats } from './runStats';
 
@@ -126,7 +127,7 @@ export function buildMeasureReport(context: MeasurementContext, stats: RunStats,
   const spectrumSettings = spectrum ? (({ aclr: _a, warnings: _w, ...rest }) => rest)(spectrum) : null;
 
   return {
-    configuration: describeConfiguration(context),
+    configuration: describeWaveform(context.identity.config),
     waveform: facts.waveform,
     symbols: totals.numSymbols,
     oversampling: identity.oversampling,
@@ -177,14 +178,6 @@ export function buildMeasureReport(context: MeasurementContext, stats: RunStats,
     warnings: dedupe(warnings),
     notes: context.notes,
   };
-}
-
-function describeConfiguration(context: MeasurementContext): string {
-  const c = context.identity.config;
-  const grid = c.standard === 'custom' && c.custom ? `custom FFT ${c.custom.fftSize}, ${c.custom.numRb} RB` : `${c.standard.toUpperCase()} ${c.bandwidthMHz} MHz`;
-  const scs = c.standard === 'lte' ? '' : ` ${c.subcarrierSpacingKHz ?? (c.standard === 'nr' ? 30 : 15)} kHz`;
-  const mapping = context.statistics.waveform === 'dft-s-ofdm' || c.mapping === 'interleaved' ? ` ${c.mapping}` : '';
-  return `${grid}${scs} ${c.link} ${context.statistics.waveform}${mapping} ${c.modulation}`;
 }
 
 function round(value: number, decimals: number): number {

@@ -1,4 +1,5 @@
 import { DspError } from '../errors';
+import { parseJsonText } from '../jsonText';
 import { createDbHistogram, PAPR_HISTOGRAM_SPEC, POWER_HISTOGRAM_SPEC, type DbHistogram, type DbHistogramSpec } from '../metrics/dbHistogram';
 import type { BlockRecord, HistogramSet } from './blockMeasurer';
 import { canonicalJson, type MeasurementContext } from './measurementContext';
@@ -51,13 +52,7 @@ export function parseShardFile(text: string, sourceName: string): ShardFile {
   const fail = (what: string): never => {
     throw new DspError('INVALID_FILE', `${sourceName}: ${what}`);
   };
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
-  } catch (err) {
-    return fail(`not valid JSON (${(err as Error).message}).`);
-  }
-  const o = json as Record<string, unknown>;
+  const o = parseJsonText(text, sourceName, 'INVALID_FILE') as Record<string, unknown>;
   if (!o || typeof o !== 'object' || o.format !== SHARD_FORMAT) return fail(`not a Crestline shard result (expected "format": "${SHARD_FORMAT}").`);
   if (o.version !== SHARD_FORMAT_VERSION) return fail(`shard format version ${String(o.version)} is not supported (this build reads version ${SHARD_FORMAT_VERSION}).`);
   const context = o.context as MeasurementContext;

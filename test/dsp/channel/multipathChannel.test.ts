@@ -3,6 +3,7 @@ import { applyMultipathChannel, createMultipathChannel, tapFrequencyResponses } 
 import { applyFractionalDelay, designFractionalDelay } from '../../../src/dsp/channel/fractionalDelay';
 import { applyFrequencyOffset, applyTimingOffset } from '../../../src/dsp/channel/impairments';
 import { createRng, deriveBlockSeed } from '../../../src/dsp/data/rng';
+import { dspErrorOf } from '../../helpers/dspErrorOf';
 import { TEST_SEED } from '../../helpers/seed';
 
 function tone(frequencyHz: number, sampleRateHz: number, n: number, delaySamples = 0): Float64Array {
@@ -22,6 +23,25 @@ describe('fractional delay (band-limited interpolation, common practice)', () =>
     const y = applyFractionalDelay(designFractionalDelay(0.37), x, new Float64Array(x.length));
     const ref = tone(0.3, fs, 400, 0.37);
     for (let i = 40; i < 360; i++) expect(Math.hypot(y[2 * i]! - ref[2 * i]!, y[2 * i + 1]! - ref[2 * i + 1]!)).toBeLessThan(2e-3);
+  });
+  it('names the buffer or option, the value given and what is allowed when a length is wrong', () => {
+    // Interleaved IQ: 2 values per complex sample (src/dsp complex-buffer convention, common practice).
+    const filter = designFractionalDelay(0.5);
+    const odd = dspErrorOf(() => applyFractionalDelay(filter, new Float64Array(8), new Float64Array(7)));
+    expect(odd.code).toBe('LENGTH_MISMATCH');
+    expect(odd.message).toBe('applyFractionalDelay outIq has 7 values; allowed: an even number (2 per complex sample, re then im), e.g. 6 or 8.');
+    expect(dspErrorOf(() => applyFractionalDelay(filter, new Float64Array(5), new Float64Array(8))).message).toMatch(/^applyFractionalDelay inIq has 5 values; allowed: an even number/);
+    // Any even output length is allowed: the output covers as many samples as it holds (fractionalDelay.ts doc).
+    expect(applyFractionalDelay(filter, new Float64Array(8), new Float64Array(12)).length).toBe(12);
+    const same = new Float64Array(8);
+    expect(dspErrorOf(() => applyFractionalDelay(filter, same, same)).code).toBe('INTERNAL');
+    // H = halfLength sets the 2H taps of a fractional delay (fractionalDelay.ts); it must be a whole number ≥ 1.
+    for (const halfLength of [0, 2.5, Number.NaN]) {
+      const bad = dspErrorOf(() => designFractionalDelay(0.5, halfLength));
+      expect(bad.code, `halfLength ${halfLength}`).toBe('INVALID_CONFIG');
+      expect(bad.message).toBe(`Fractional-delay halfLength ${halfLength} must be a whole number ≥ 1 (the filter has 2·halfLength taps; default 16).`);
+    }
+    expect(designFractionalDelay(0.5, 1).taps.length).toBe(2);
   });
   it('is exact for whole-sample delays', () => {
     const x = tone(0.1, 1, 50);

@@ -83,6 +83,14 @@ describe(`sum-of-sinusoids Rayleigh fading (Xiao, Zheng & Beaulieu 2006), seed $
     }
   });
 
+  it('refuses an output that is not whole complex samples, saying what is allowed', () => {
+    // Interleaved IQ: 2 values per complex sample (src/dsp complex-buffer convention, common practice).
+    const fading = createSosFading(10, 20, createRng(TEST_SEED));
+    expect(() => fillSosFading(fading, 0, sampleRateHz, new Float64Array(9))).toThrow(
+      'fillSosFading outIq has 9 values; allowed: an even number (2 per complex sample, re then im), e.g. 8 or 10.',
+    );
+  });
+
   it('is reproducible from its seed', () => {
     const a = ensemble(TEST_SEED)[3]!;
     expect(Array.from(a)).toEqual(Array.from(processes[3]!));
