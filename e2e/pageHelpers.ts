@@ -31,6 +31,11 @@ export async function traceNames(plot: Locator): Promise<string[]> {
   return plot.evaluate((element) => ((element as HTMLElement & { figureData?: { name?: string }[] }).figureData ?? []).map((t) => t.name ?? ''));
 }
 
+/** The title of a canvas-drawn plot (shown as page text beside its graph div). */
+export function plotCaption(plot: Locator): Locator {
+  return plot.locator('xpath=..').locator('.plot-caption');
+}
+
 /** The value cell of a metric in the measurements panel. */
 export function metricValue(page: Page, id: string): Locator {
   return page.locator(`[data-metric="${id}"] [data-value]`);

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { metricValue, openSection, renderCount, shootPanel, traceNames, waitForPlot, watchPage } from './pageHelpers';
+import { metricValue, openSection, plotCaption, renderCount, shootPanel, traceNames, waitForPlot, watchPage } from './pageHelpers';
 
 // The workbench in Debian chromium: the demo opens with both pinned scenarios, every panel draws from the worker pool,
 // edits reach the plots and measurements, bad values stop at their field, and the page keeps to its own origin and a
@@ -30,7 +30,7 @@ test('opens the demo: every panel draws from the workers, no console errors, no 
   // Symbol 0 spans 4 × (1024 + 80) = 4416 samples (TS 36.211 Table 5.6-1, scaled to N_FFT 1024 and 4×), drawn as
   // min/max buckets of 9 samples: 2 × ⌈4416/9⌉ = 982 points per trace.
   expect(timeTraces).toEqual(['I:982', 'Q:982', '|x|:982', 'peak:1']);
-  await expect(page.getByTestId('time-samples-plot').locator('.gtitle')).toContainText('4416 samples');
+  await expect(plotCaption(page.getByTestId('time-samples-plot'))).toContainText('4416 samples');
   // The Rapp PA at 6 dB OBO leaves EVM well under the 16QAM limit of 12.5 % (TS 36.101 Table 6.5.2.1.1-1) and the
   // measured OBO equals the configured one.
   await expect(metricValue(page, 'evm')).toHaveText(/^\d+\.\d+$/);
@@ -118,12 +118,41 @@ test('follows waveform and modulation changes in the plots and the measurements'
     )
     .toBe(4);
   expect(await renderCount(constellation)).toBeGreaterThan(rendersBefore);
-  await expect(constellation.locator('.gtitle')).toHaveText('Symbol 0: 480 QPSK data symbols');
+  // The title carries the EVM readout of the received points.
+  await expect(plotCaption(constellation)).toHaveText(/^Symbol 0: 480 QPSK data symbols; received EVM \d+\.\d+ %$/);
   // The EVM limit follows the modulation: QPSK 17.5 % (TS 36.101 Table 6.5.2.1.1-1).
   await expect(page.locator('[data-metric="evm"] .metric-limit')).toContainText('17.5 %');
 
   await page.getByLabel('Symbol shown', { exact: true }).fill('3');
-  await expect(page.getByTestId('time-samples-plot').locator('.gtitle')).toContainText('Symbol 3: time samples');
+  const timePlot = page.getByTestId('time-samples-plot');
+  await expect(plotCaption(timePlot)).toContainText('Symbol 3: time samples');
+
+  // The traces are drawn on the canvas layer: pixels there, and a readout for the point under the pointer — here the
+  // peak marker, placed with the axes Plotly laid out.
+  const peak = await timePlot.evaluate((element) => {
+    type Axis = { range: [number, number]; _offset: number; _length: number };
+    const gd = element as HTMLElement & { figureData?: { name: string; x: number[]; y: number[] }[]; _fullLayout?: { xaxis: Axis; yaxis: Axis } };
+    const trace = gd.figureData!.find((t) => t.name === 'peak')!;
+    const { xaxis: xa, yaxis: ya } = gd._fullLayout!;
+    const canvas = gd.querySelector('canvas.plot-canvas-layer') as HTMLCanvasElement;
+    const pixels = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
+    let inked = 0;
+    for (let i = 3; i < pixels.length; i += 4) if (pixels[i]! > 0) inked += 1;
+    return {
+      x: xa._offset + ((trace.x[0]! - xa.range[0]) / (xa.range[1] - xa.range[0])) * xa._length,
+      y: ya._offset + (1 - (trace.y[0]! - ya.range[0]) / (ya.range[1] - ya.range[0])) * ya._length,
+      inkedFraction: inked / (pixels.length / 4),
+      magnitude: trace.y[0]!,
+    };
+  });
+  expect(peak.inkedFraction).toBeGreaterThan(0.05);
+  const box = (await timePlot.boundingBox())!;
+  await page.mouse.move(box.x + peak.x + 1, box.y + peak.y + 1);
+  const readout = timePlot.locator('xpath=..').locator('.plot-readout');
+  await expect(readout).toBeVisible();
+  await expect(readout.locator('span').first()).toHaveText(`peak |x| ${peak.magnitude.toPrecision(4)}`);
+  await page.mouse.move(box.x + box.width + 40, box.y + box.height + 40);
+  await expect(readout).toBeHidden();
   expect(watch.consoleErrors).toEqual([]);
 });
 

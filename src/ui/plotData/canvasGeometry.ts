@@ -2,7 +2,7 @@
  * Geometry of the canvas drawing layer, pure: data value → pixel for Plotly's linear and log axes, the dash
  * patterns Plotly uses, the nearest point under the pointer and the hover text from a Plotly hover template.
  */
-import type { CanvasTrace, DashName } from './canvasTraces';
+import type { CanvasRef, CanvasTrace, DashName } from './canvasTraces';
 
 /** What the layer reads off one Plotly axis: its range (log10 units on a log axis), type, offset and length in px. */
 export interface AxisGeometry {
@@ -20,6 +20,29 @@ export function toPixel(axis: AxisGeometry, value: number | null | undefined, ve
   const [r0, r1] = axis.range;
   const fraction = (v - r0) / (r1 - r0);
   return vertical ? axis.offsetPx + (1 - fraction) * axis.lengthPx : axis.offsetPx + fraction * axis.lengthPx;
+}
+
+/** The plot area in px (Plotly's margins inside the graph div): left, top, width, height. */
+export interface PaperGeometry {
+  l: number;
+  t: number;
+  w: number;
+  h: number;
+}
+
+/** Pixel position of a shape or annotation coordinate measured in `ref` (data, axis domain or plot area). */
+export function refToPixel(
+  ref: CanvasRef,
+  value: number,
+  vertical: boolean,
+  paper: PaperGeometry,
+  axisOf: (key: string) => AxisGeometry | null,
+): number {
+  if (ref.space === 'paper') return vertical ? paper.t + (1 - value) * paper.h : paper.l + value * paper.w;
+  const axis = axisOf(ref.axis);
+  if (axis === null) return Number.NaN;
+  if (ref.space === 'domain') return vertical ? axis.offsetPx + (1 - value) * axis.lengthPx : axis.offsetPx + value * axis.lengthPx;
+  return toPixel(axis, value, vertical);
 }
 
 /** Plotly's dash patterns (drawing.dashStyle): units of max(line width, 3) px. */
@@ -60,8 +83,9 @@ export interface HoverHit {
 }
 
 /**
- * The point closest to (xPx, yPx) within `maxDistancePx`, over the traces that take hover. A bar is hit anywhere over
- * its column. `axes` gives each trace's geometry.
+ * The point closest to (xPx, yPx) within `maxDistancePx`, over the traces that take hover; distances run to a
+ * marker's edge, so a marked point wins over a line vertex under it, and a bar is hit anywhere over its column.
+ * `axes` gives each trace's geometry.
  */
 export function nearestPoint(
   traces: readonly CanvasTrace[],
@@ -76,6 +100,7 @@ export function nearestPoint(
     if (trace.hoverTemplate === null) continue;
     const geometry = axes(trace);
     if (geometry === null) continue;
+    const markerRadiusPx = trace.kind === 'scatter' && trace.marker !== null ? trace.marker.sizePx / 2 : 0;
     const halfBarPx = trace.kind === 'bar' ? (trace.barWidth / Math.abs(geometry.x.range[1] - geometry.x.range[0])) * geometry.x.lengthPx * 0.5 : 0;
     for (let i = 0; i < trace.x.length; i++) {
       const px = toPixel(geometry.x, trace.x[i], false);
@@ -83,7 +108,8 @@ export function nearestPoint(
       if (Number.isNaN(px) || Number.isNaN(py)) continue;
       const dx = trace.kind === 'bar' ? Math.max(0, Math.abs(xPx - px) - halfBarPx) : xPx - px;
       const dy = trace.kind === 'bar' ? 0 : yPx - py;
-      const d = dx * dx + dy * dy;
+      // Distance to a marker's edge: a marked point (a peak, a level) wins over a line vertex under it.
+      const d = Math.max(0, Math.hypot(dx, dy) - markerRadiusPx) ** 2;
       if (d <= bestDistance) {
         bestDistance = d;
         best = { trace, pointIndex: i, xPx: px, yPx: py };
@@ -112,6 +138,11 @@ export function hoverLines(template: string, x: number, y: number): string[] {
   const extra = /<extra>(.*?)<\/extra>/.exec(template)?.[1] ?? '';
   const body = template.replace(/<extra>.*?<\/extra>/g, '');
   const text = body.replace(/%\{([xy])(?::([^}]*))?\}/g, (_, axis: string, format: string | undefined) => formatNumber(axis === 'x' ? x : y, format));
-  const lines = text.split(/<br\s*\/?>/i).map((line) => line.replace(/<[^>]*>/g, ''));
+  const lines = textLines(text);
   return extra.trim() === '' ? lines : [...lines, extra];
+}
+
+/** Plain-text lines of a Plotly label: <br> breaks lines, other tags are dropped. */
+export function textLines(text: string): string[] {
+  return text.split(/<br\s*\/?>/i).map((line) => line.replace(/<[^>]*>/g, ''));
 }

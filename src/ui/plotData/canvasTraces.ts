@@ -4,6 +4,10 @@
  * area instead. Plotly redraws its frame only when the frame changes, so a new configuration whose data changed but
  * whose axes did not costs a canvas redraw (about a millisecond) instead of a full Plotly replot (tens of ms).
  *
+ * Shapes (rectangles, lines) and plain text annotations go to the canvas too, and the title becomes a caption the
+ * page shows above the plot: values in them change with every configuration, and each such change would otherwise
+ * cost a Plotly relayout. What remains with Plotly — axes, legend, margins — changes only when an axis range does.
+ *
  * Pure: no DOM. The legend still comes from Plotly: each canvas trace leaves behind a "proxy" trace with the same
  * name and style and no points (its x and y are one shared empty array, so Plotly sees no data change). Axes the
  * canvas draws on need explicit ranges; where the figure leaves one to autorange, it is computed here from the data
@@ -11,7 +15,7 @@
  * stays put while values wander.
  */
 import type { Data, Layout } from 'plotly.js-dist-min';
-import { barWidth } from './canvasGeometry';
+import { barWidth, textLines } from './canvasGeometry';
 
 export type MarkerSymbol = 'circle' | 'circle-open' | 'square' | 'diamond' | 'cross-thin' | 'x-thin';
 
@@ -40,12 +44,53 @@ export interface CanvasTrace {
 
 export type DashName = 'solid' | 'dot' | 'dash' | 'longdash' | 'dashdot' | 'longdashdot';
 
-export interface CanvasSplit {
+/** Where a shape or annotation coordinate is measured: an axis's data, an axis's domain (0…1), or the plot area. */
+export type CanvasRef = { space: 'data' | 'domain'; axis: string } | { space: 'paper' };
+
+export interface CanvasShape {
+  kind: 'rect' | 'line';
+  xRef: CanvasRef;
+  yRef: CanvasRef;
+  x0: number;
+  x1: number;
+  y0: number;
+  y1: number;
+  fillColor: string | null;
+  line: { color: string; widthPx: number; dash: DashName } | null;
+  /** Drawn under the traces (Plotly's layer "below"). */
+  below: boolean;
+}
+
+export interface CanvasAnnotation {
+  lines: string[];
+  xRef: CanvasRef;
+  yRef: CanvasRef;
+  x: number;
+  y: number;
+  xAnchor: 'left' | 'center' | 'right';
+  yAnchor: 'top' | 'middle' | 'bottom';
+  fontPx: number;
+  color: string;
+}
+
+/** Everything the canvas layer draws for one figure. */
+export interface CanvasScene {
+  traces: CanvasTrace[];
+  shapes: CanvasShape[];
+  annotations: CanvasAnnotation[];
+}
+
+export interface CanvasSplit extends CanvasScene {
   /** What Plotly draws: traces it must draw itself, and an empty legend proxy for each canvas trace. */
   plotlyData: Data[];
-  /** The figure's layout with explicit ranges on every axis a canvas trace uses. */
+  /** The figure's layout with explicit ranges on every axis the canvas uses, without the title and the moved shapes and annotations. */
   layout: Partial<Layout>;
-  canvasTraces: CanvasTrace[];
+  /** The title as plain text (shown above the plot by the page), '' when there is none. */
+  caption: string;
+  /** Font size of the title, px. */
+  captionPx: number;
+  /** The legend shares the title's band on the right (horizontal legend above the plot): the caption keeps clear of it. */
+  legendBesideCaption: boolean;
 }
 
 /** One shared empty point list: Plotly compares data arrays by reference, so proxies never look like new data. */
@@ -216,8 +261,58 @@ function* shapeValues(layout: Partial<Layout>, key: string): Generator<number> {
   }
 }
 
+/** Parses Plotly's "x", "x2", "x domain", "paper" references; null for what the canvas does not place. */
+export function parseRef(ref: unknown, letter: 'x' | 'y'): CanvasRef | null {
+  const text = ref === undefined ? letter : ref;
+  if (text === 'paper') return { space: 'paper' };
+  if (typeof text !== 'string') return null;
+  const match = new RegExp(`^${letter}(\\d*)( domain)?$`).exec(text);
+  if (match === null) return null;
+  return { space: match[2] === undefined ? 'data' : 'domain', axis: axisKey(`${letter}${match[1] ?? ''}`, letter) };
+}
+
+function toCanvasShape(shape: Loose, fallbackColour: string): CanvasShape | null {
+  if (shape.type !== 'rect' && shape.type !== 'line') return null;
+  const xRef = parseRef(shape.xref, 'x');
+  const yRef = parseRef(shape.yref, 'y');
+  const [x0, x1, y0, y1] = [shape.x0, shape.x1, shape.y0, shape.y1];
+  if (xRef === null || yRef === null || ![x0, x1, y0, y1].every((v) => typeof v === 'number' && Number.isFinite(v))) return null;
+  if (shape.visible === false || (shape.opacity !== undefined && shape.opacity !== 1) || shape.path !== undefined) return null;
+  const line = obj(shape.line);
+  const widthPx = num(line.width, 2);
+  const dash = (line.dash as DashName | undefined) ?? 'solid';
+  if (!DASHES.includes(dash)) return null;
+  return {
+    kind: shape.type,
+    xRef,
+    yRef,
+    x0: x0 as number,
+    x1: x1 as number,
+    y0: y0 as number,
+    y1: y1 as number,
+    fillColor: shape.type === 'rect' && typeof shape.fillcolor === 'string' ? shape.fillcolor : null,
+    line: widthPx > 0 ? { color: str(line.color, fallbackColour), widthPx, dash } : null,
+    below: shape.layer === 'below',
+  };
+}
+
+function toCanvasAnnotation(annotation: Loose, fallbackColour: string, fallbackPx: number): CanvasAnnotation | null {
+  if (annotation.showarrow !== false || typeof annotation.text !== 'string' || annotation.visible === false) return null;
+  const xRef = parseRef(annotation.xref, 'x');
+  const yRef = parseRef(annotation.yref, 'y');
+  const { x, y } = annotation;
+  if (xRef === null || yRef === null || typeof x !== 'number' || typeof y !== 'number') return null;
+  if (annotation.bgcolor !== undefined || annotation.bordercolor !== undefined || annotation.textangle !== undefined) return null;
+  const font = obj(annotation.font);
+  const xAnchor = annotation.xanchor === 'left' || annotation.xanchor === 'right' ? annotation.xanchor : 'center';
+  const yAnchor = annotation.yanchor === 'top' || annotation.yanchor === 'bottom' ? annotation.yanchor : 'middle';
+  return { lines: textLines(annotation.text), xRef, yRef, x, y, xAnchor, yAnchor, fontPx: num(font.size, fallbackPx), color: str(font.color, fallbackColour) };
+}
+
 /** Splits `figure` for the canvas layer (see the file comment). Traces the canvas cannot draw stay with Plotly. */
 export function splitForCanvas(figure: { data: Data[]; layout: Partial<Layout> }, fallbackColour = '#444'): CanvasSplit {
+  const font = obj(figure.layout.font);
+  const textColour = str(font.color, fallbackColour);
   const canvasTraces: CanvasTrace[] = [];
   const plotlyData = figure.data.map((trace, index) => {
     if (!canvasDrawable(trace)) return trace;
@@ -240,5 +335,33 @@ export function splitForCanvas(figure: { data: Data[]; layout: Partial<Layout> }
     const range = autoRange(values(), { toZero: axis.rangemode === 'tozero', log: axis.type === 'log', pad, round: letter === 'y' });
     layout[key] = { ...axis, range, autorange: false };
   }
-  return { plotlyData, layout: layout as Partial<Layout>, canvasTraces };
+
+  const shapes: CanvasShape[] = [];
+  const plotlyShapes = ((figure.layout.shapes ?? []) as Loose[]).filter((shape) => {
+    const drawn = toCanvasShape(shape, textColour);
+    if (drawn !== null) shapes.push(drawn);
+    return drawn === null;
+  });
+  const annotations: CanvasAnnotation[] = [];
+  const plotlyAnnotations = ((figure.layout.annotations ?? []) as Loose[]).filter((annotation) => {
+    const drawn = toCanvasAnnotation(annotation, textColour, num(font.size, 12));
+    if (drawn !== null) annotations.push(drawn);
+    return drawn === null;
+  });
+  if (figure.layout.shapes !== undefined) layout.shapes = plotlyShapes;
+  if (figure.layout.annotations !== undefined) layout.annotations = plotlyAnnotations;
+  // Axes of moved shapes need explicit ranges too (they are already there in every figure we draw).
+  const title = obj(figure.layout.title);
+  const caption = typeof figure.layout.title === 'string' ? figure.layout.title : str(title.text, '');
+  if (figure.layout.title !== undefined) layout.title = { text: '' };
+  return {
+    plotlyData,
+    layout: layout as Partial<Layout>,
+    traces: canvasTraces,
+    shapes,
+    annotations,
+    caption: textLines(caption).join(' '),
+    captionPx: num(obj(title.font).size, num(font.size, 12)),
+    legendBesideCaption: figure.layout.showlegend !== false && num(obj(figure.layout.legend).y, 0) >= 1 && obj(figure.layout.legend).xanchor === 'right',
+  };
 }

@@ -112,12 +112,15 @@ export function buildConstellationFigure(
       hovertemplate: 'ideal I %{x:.4f}<br>Q %{y:.4f}<extra></extra>',
     },
   ];
+  // The EVM readout goes in the title, not the legend: the legend then never changes between configurations.
+  let readout = '';
   if (received !== null) {
     const shown = everyKth(received.inPhase, MAX_RECEIVED_POINTS).length;
+    readout = `; received EVM ${received.evmPercent.toFixed(received.evmPercent < 1 ? 3 : 2)} %${shown < received.inPhase.length ? ` (${shown} of ${received.inPhase.length} shown)` : ''}`;
     data.push({
       type: 'scatter',
       mode: 'markers',
-      name: `received (EVM ${received.evmPercent.toFixed(received.evmPercent < 1 ? 3 : 2)} %${shown < received.inPhase.length ? `, ${shown} of ${received.inPhase.length} shown` : ''})`,
+      name: 'received',
       x: everyKth(received.inPhase, MAX_RECEIVED_POINTS),
       y: everyKth(received.quadrature, MAX_RECEIVED_POINTS),
       marker: { color: theme.series[1] ?? theme.quadrature, size: 3.5, opacity: 0.55 },
@@ -129,7 +132,7 @@ export function buildConstellationFigure(
     layout: {
       ...base,
       title: {
-        text: `Symbol ${series.symbolIndex}: ${series.inPhase.length} ${modulationLabel} data symbols`,
+        text: `Symbol ${series.symbolIndex}: ${series.inPhase.length} ${modulationLabel} data symbols${readout}`,
         font: { size: 13 },
         x: 0,
         xanchor: 'left',

@@ -48,6 +48,8 @@ export function PlotlyFigure({ figure, label, testId, epoch, drawing = 'svg' }: 
   const renderCount = useRef(0);
   const drawnFigure = useRef<Figure | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
+  // Canvas drawing: the figure's title, shown as page text where Plotly would draw it.
+  const [caption, setCaption] = useState<{ text: string; sizePx: number; clearRight: boolean } | null>(null);
   const timer = useUpdateTimer();
 
   useEffect(() => {
@@ -82,7 +84,9 @@ export function PlotlyFigure({ figure, label, testId, epoch, drawing = 'svg' }: 
           if (!current) return;
           const readout = readoutRef.current;
           if (layerRef.current === null && readout !== null) layerRef.current = createCanvasLayer(box, readout);
-          layerRef.current?.draw(split.canvasTraces);
+          layerRef.current?.draw(split);
+          const next = { text: split.caption, sizePx: split.captionPx, clearRight: split.legendBesideCaption };
+          setCaption((shown) => (shown !== null && shown.text === next.text && shown.sizePx === next.sizePx && shown.clearRight === next.clearRight ? shown : next));
           performance.measure(`crestline:react:${testId}`, { start: t, end: performance.now() });
         };
         if (key === frameKey.current) {
@@ -135,6 +139,11 @@ export function PlotlyFigure({ figure, label, testId, epoch, drawing = 'svg' }: 
   return (
     <figure className="plot" aria-label={label}>
       <div ref={boxRef} className="plot-box" data-testid={testId} data-drawing={drawing} role="img" aria-label={label} />
+      {drawing === 'canvas' && caption !== null && caption.text !== '' && (
+        <p className="plot-caption" data-caption-for={testId} style={{ fontSize: `${caption.sizePx}px`, right: caption.clearRight ? '45%' : '8px' }}>
+          {caption.text}
+        </p>
+      )}
       {drawing === 'canvas' && <div ref={readoutRef} className="plot-readout" aria-hidden="true" hidden />}
       {figure === null && <p className="plot-placeholder">Waiting for the engine…</p>}
       {loadError !== null && (

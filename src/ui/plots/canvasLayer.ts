@@ -4,8 +4,8 @@
  * geometry read off Plotly's laid-out axes, so zoom, pan, legend clicks and resizes redraw it. Shows a hover readout
  * for the point nearest the pointer. DOM only; the geometry is pure (canvasGeometry.ts).
  */
-import { dashPattern, hoverLines, nearestPoint, toPixel, type AxisGeometry } from '../plotData/canvasGeometry';
-import type { CanvasTrace } from '../plotData/canvasTraces';
+import { dashPattern, hoverLines, nearestPoint, refToPixel, toPixel, type AxisGeometry, type PaperGeometry } from '../plotData/canvasGeometry';
+import type { CanvasAnnotation, CanvasScene, CanvasShape, CanvasTrace } from '../plotData/canvasTraces';
 
 interface PlotlyAxis {
   range?: [number, number];
@@ -16,14 +16,14 @@ interface PlotlyAxis {
 
 /** The parts of Plotly's graph div the layer reads (Plotly 4 internals, pinned in package.json). */
 interface GraphDiv extends HTMLDivElement {
-  _fullLayout?: Record<string, unknown> & { width?: number; height?: number };
+  _fullLayout?: Record<string, unknown> & { width?: number; height?: number; _size?: PaperGeometry };
   _fullData?: { visible?: boolean | 'legendonly' }[];
   on?(event: string, handler: () => void): void;
 }
 
 export interface CanvasLayer {
-  /** Draws `traces` now (after Plotly has laid out the frame they belong to). */
-  draw(traces: readonly CanvasTrace[]): void;
+  /** Draws `scene` now (after Plotly has laid out the frame it belongs to). */
+  draw(scene: CanvasScene): void;
   dispose(): void;
 }
 
@@ -154,13 +154,62 @@ function drawTrace(ctx: CanvasRenderingContext2D, trace: CanvasTrace, xa: AxisGe
   ctx.restore();
 }
 
+type AxisOf = (key: string) => AxisGeometry | null;
+
+function drawShape(ctx: CanvasRenderingContext2D, shape: CanvasShape, paper: PaperGeometry, axisOf: AxisOf): void {
+  const x0 = refToPixel(shape.xRef, shape.x0, false, paper, axisOf);
+  const x1 = refToPixel(shape.xRef, shape.x1, false, paper, axisOf);
+  const y0 = refToPixel(shape.yRef, shape.y0, true, paper, axisOf);
+  const y1 = refToPixel(shape.yRef, shape.y1, true, paper, axisOf);
+  if ([x0, x1, y0, y1].some(Number.isNaN)) return;
+  ctx.save();
+  ctx.beginPath();
+  ctx.rect(paper.l, paper.t, paper.w, paper.h);
+  ctx.clip();
+  ctx.beginPath();
+  if (shape.kind === 'rect') ctx.rect(Math.min(x0, x1), Math.min(y0, y1), Math.abs(x1 - x0), Math.abs(y1 - y0));
+  else {
+    ctx.moveTo(x0, y0);
+    ctx.lineTo(x1, y1);
+  }
+  if (shape.fillColor !== null) {
+    ctx.fillStyle = shape.fillColor;
+    ctx.fill();
+  }
+  if (shape.line !== null) {
+    ctx.strokeStyle = shape.line.color;
+    ctx.lineWidth = shape.line.widthPx;
+    ctx.setLineDash(dashPattern(shape.line.dash, shape.line.widthPx));
+    ctx.stroke();
+  }
+  ctx.restore();
+}
+
+/** Text like Plotly's annotations without arrow: anchored at (x, y), lines 1.3 em apart, 2 px from the anchor. */
+function drawAnnotation(ctx: CanvasRenderingContext2D, note: CanvasAnnotation, paper: PaperGeometry, axisOf: AxisOf): void {
+  const x = refToPixel(note.xRef, note.x, false, paper, axisOf);
+  const y = refToPixel(note.yRef, note.y, true, paper, axisOf);
+  if (Number.isNaN(x) || Number.isNaN(y)) return;
+  const lineHeight = 1.3 * note.fontPx;
+  const height = note.lines.length * lineHeight;
+  const top = note.yAnchor === 'top' ? y + 2 : note.yAnchor === 'bottom' ? y - 2 - height : y - height / 2;
+  ctx.save();
+  ctx.font = `${note.fontPx}px system-ui, sans-serif`;
+  ctx.fillStyle = note.color;
+  ctx.textAlign = note.xAnchor;
+  ctx.textBaseline = 'middle';
+  const textX = note.xAnchor === 'left' ? x + 2 : note.xAnchor === 'right' ? x - 2 : x;
+  note.lines.forEach((line, i) => ctx.fillText(line, textX, top + (i + 0.5) * lineHeight));
+  ctx.restore();
+}
+
 /** Attaches a canvas layer to `gd` (a graph div Plotly has drawn into) and a hover readout element. */
 export function createCanvasLayer(gd: HTMLDivElement, readout: HTMLElement): CanvasLayer {
   const div = gd as GraphDiv;
   const canvas = document.createElement('canvas');
   canvas.className = 'plot-canvas-layer';
   canvas.setAttribute('aria-hidden', 'true');
-  let traces: readonly CanvasTrace[] = [];
+  let scene: CanvasScene = { traces: [], shapes: [], annotations: [] };
   let listening = false;
   let frame = 0;
 
@@ -191,10 +240,15 @@ export function createCanvasLayer(gd: HTMLDivElement, readout: HTMLElement): Can
     if (ctx === null) return;
     ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
     ctx.clearRect(0, 0, widthPx, heightPx);
-    for (const trace of traces) {
+    const paper = div._fullLayout?._size ?? { l: 0, t: 0, w: widthPx, h: heightPx };
+    const axisOf = (key: string) => axisGeometry(div._fullLayout, key);
+    for (const shape of scene.shapes) if (shape.below) drawShape(ctx, shape, paper, axisOf);
+    for (const trace of scene.traces) {
       const geometry = geometryOf(trace);
       if (geometry !== null && visible(trace)) drawTrace(ctx, trace, geometry.x, geometry.y);
     }
+    for (const shape of scene.shapes) if (!shape.below) drawShape(ctx, shape, paper, axisOf);
+    for (const note of scene.annotations) drawAnnotation(ctx, note, paper, axisOf);
   };
 
   // Zoom, pan, legend clicks and resizes: redraw once per animation frame.
@@ -212,7 +266,7 @@ export function createCanvasLayer(gd: HTMLDivElement, readout: HTMLElement): Can
   const onPointerMove = (event: PointerEvent) => {
     if (event.buttons !== 0) return hide();
     const box = gd.getBoundingClientRect();
-    const hit = nearestPoint(traces.filter(visible), geometryOf, event.clientX - box.left, event.clientY - box.top);
+    const hit = nearestPoint(scene.traces.filter(visible), geometryOf, event.clientX - box.left, event.clientY - box.top);
     if (hit === null || hit.trace.hoverTemplate === null) return hide();
     const x = Number(hit.trace.x[hit.pointIndex]);
     const y = Number(hit.trace.y[hit.pointIndex]);
@@ -231,7 +285,7 @@ export function createCanvasLayer(gd: HTMLDivElement, readout: HTMLElement): Can
 
   return {
     draw: (next) => {
-      traces = next;
+      scene = next;
       if (!listening && typeof div.on === 'function') {
         listening = true;
         for (const event of ['plotly_afterplot', 'plotly_relayout', 'plotly_relayouting', 'plotly_restyle']) div.on(event, schedule);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { barWidth, dashPattern, formatNumber, hoverLines, nearestPoint, toPixel, type AxisGeometry } from '../../../src/ui/plotData/canvasGeometry';
+import { barWidth, dashPattern, formatNumber, hoverLines, nearestPoint, refToPixel, toPixel, type AxisGeometry } from '../../../src/ui/plotData/canvasGeometry';
 import { splitForCanvas } from '../../../src/ui/plotData/canvasTraces';
 
 const xAxis: AxisGeometry = { range: [0, 10], log: false, offsetPx: 50, lengthPx: 500 };
@@ -41,7 +41,7 @@ describe('barWidth', () => {
 });
 
 describe('nearestPoint', () => {
-  const { canvasTraces } = splitForCanvas({
+  const { traces: canvasTraces } = splitForCanvas({
     data: [
       { type: 'scatter', mode: 'markers', name: 'a', x: [1, 2, 3], y: [0, 0.5, -0.5], hovertemplate: 'a %{x}' },
       { type: 'scatter', mode: 'lines', name: 'quiet', x: [2], y: [0.5], hoverinfo: 'skip' },
@@ -57,6 +57,18 @@ describe('nearestPoint', () => {
     expect(hit).toMatchObject({ pointIndex: 1, xPx: 150, yPx: 70 });
     expect(hit!.trace.name).toBe('a');
     expect(nearestPoint(canvasTraces, axes, 152, 140)).toBeNull(); // 70 px away: out of reach
+  });
+
+  it('prefers a marker over a line vertex at the same spot', () => {
+    const { traces } = splitForCanvas({
+      data: [
+        { type: 'scatter', mode: 'lines', name: 'line', x: [5.02], y: [0], hovertemplate: 'line' },
+        { type: 'scatter', mode: 'markers', name: 'peak', x: [5], y: [0.04], marker: { size: 9 }, hovertemplate: 'peak' },
+      ],
+      layout: { xaxis: { range: [0, 10] }, yaxis: { range: [-1, 1] } },
+    });
+    // Pointer on the line vertex (301, 120); the marker's centre is 4.4 px away but its edge is under the pointer.
+    expect(nearestPoint(traces, axes, 301, 120)?.trace.name).toBe('peak');
   });
 
   it('hits a bar anywhere over its column', () => {
@@ -79,5 +91,18 @@ describe('hover text', () => {
     expect(hoverLines('I %{y:.4g}<br>%{x:.3f} µs<extra></extra>', 12.3456, -0.25)).toEqual(['I -0.2500', '12.346 µs']);
     expect(hoverLines('input %{x:.2f} dB<br>output %{y:.2f} dB<extra>AM/AM</extra>', -3, -4.5)).toEqual(['input -3.00 dB', 'output -4.50 dB', 'AM/AM']);
     expect(hoverLines('<b>bold</b> %{x}', 2, 0)).toEqual(['bold 2']);
+  });
+});
+
+describe('refToPixel', () => {
+  const paper = { l: 50, t: 20, w: 500, h: 200 };
+  const axisOf = (key: string) => (key === 'xaxis' ? xAxis : key === 'yaxis' ? yAxis : key === 'xaxis2' ? { ...xAxis, offsetPx: 400, lengthPx: 100 } : null);
+
+  it('places data, axis-domain and plot-area coordinates as Plotly’s xref/yref define them', () => {
+    expect(refToPixel({ space: 'data', axis: 'xaxis' }, 5, false, paper, axisOf)).toBe(300);
+    expect(refToPixel({ space: 'paper' }, 0, true, paper, axisOf)).toBe(220); // paper y = 0 is the bottom
+    expect(refToPixel({ space: 'paper' }, 1, false, paper, axisOf)).toBe(550);
+    expect(refToPixel({ space: 'domain', axis: 'xaxis2' }, 0.5, false, paper, axisOf)).toBe(450);
+    expect(refToPixel({ space: 'data', axis: 'yaxis9' }, 0.5, true, paper, axisOf)).toBeNaN();
   });
 });

@@ -50,7 +50,7 @@ describe('splitForCanvas', () => {
   it('moves every scatter trace to the canvas and leaves Plotly a point-less legend proxy with the same style', () => {
     const figure = timeFigure();
     const split = splitForCanvas(figure);
-    expect(split.canvasTraces.map((t) => t.name)).toEqual(['I', 'Q', '|x|', 'peak']);
+    expect(split.traces.map((t) => t.name)).toEqual(['I', 'Q', '|x|', 'peak']);
     expect(split.plotlyData.map((t) => t.name)).toEqual(['I', 'Q', '|x|', 'peak']);
     for (const proxy of split.plotlyData as { x: unknown; y: unknown; hoverinfo: unknown }[]) {
       expect(proxy.x).toEqual([null]);
@@ -61,7 +61,7 @@ describe('splitForCanvas', () => {
     expect((again.plotlyData[0] as { x: unknown }).x).toBe((split.plotlyData[0] as { x: unknown }).x);
     expect(split.plotlyData[0]).toMatchObject({ type: 'scatter', mode: 'lines', line: { color: plotThemes.light.inPhase, width: 1 } });
     // The drawn traces keep the points and their styles.
-    const [i, , magnitude, peak] = split.canvasTraces;
+    const [i, , magnitude, peak] = split.traces;
     expect(i!.x).toBe((figure.data[0] as { x: unknown }).x);
     expect(i!.line).toEqual({ color: plotThemes.light.inPhase, widthPx: 1, dash: 'solid' });
     expect(i!.marker).toBeNull();
@@ -87,7 +87,7 @@ describe('splitForCanvas', () => {
       perSymbolPercent: [3.2, 2.8, 3.0],
     } as unknown as EvmData;
     const receiver = splitForCanvas(buildReceiverFigure(evm, plotThemes.light));
-    expect(receiver.canvasTraces.map((t) => [t.kind, t.xAxis, t.yAxis])).toEqual([
+    expect(receiver.traces.map((t) => [t.kind, t.xAxis, t.yAxis])).toEqual([
       ['scatter', 'xaxis', 'yaxis'],
       ['bar', 'xaxis2', 'yaxis2'],
     ]);
@@ -97,7 +97,7 @@ describe('splitForCanvas', () => {
     // Subcarriers run edge to edge (line trace); bars get half a bar width (0.8 × spacing 1) each side.
     expect(receiver.layout.xaxis?.range).toEqual([0, 4]);
     expect(receiver.layout.xaxis2?.range).toEqual([-0.4, 2.4]);
-    expect(receiver.canvasTraces[0]!.connectGaps).toBe(false);
+    expect(receiver.traces[0]!.connectGaps).toBe(false);
   });
 
   it('leaves what the canvas cannot draw to Plotly', () => {
@@ -108,8 +108,8 @@ describe('splitForCanvas', () => {
     expect([heatmap, text, tonexty, band].map(canvasDrawable)).toEqual([false, false, false, true]);
     const split = splitForCanvas({ data: [heatmap, band], layout: {} });
     expect(split.plotlyData[0]).toBe(heatmap);
-    expect(split.canvasTraces).toHaveLength(1);
-    expect(split.canvasTraces[0]).toMatchObject({ traceIndex: 1, fillColor: 'rgba(0,0,0,0.1)', line: null });
+    expect(split.traces).toHaveLength(1);
+    expect(split.traces[0]).toMatchObject({ traceIndex: 1, fillColor: 'rgba(0,0,0,0.1)', line: null });
   });
 
   it('reads asymmetric horizontal error bars and Plotly’s axis keys', () => {
@@ -121,7 +121,7 @@ describe('splitForCanvas', () => {
       marker: { symbol: 'circle-open', size: 7, line: { width: 1.6 } },
       error_x: { type: 'data', symmetric: false, array: [0.2], arrayminus: [0.1], thickness: 1.2, width: 4 },
     } as Data;
-    const [trace] = splitForCanvas({ data: [levels], layout: { xaxis: { range: [0, 13] }, yaxis: { type: 'log', range: [-6, 0] } } }).canvasTraces;
+    const [trace] = splitForCanvas({ data: [levels], layout: { xaxis: { range: [0, 13] }, yaxis: { type: 'log', range: [-6, 0] } } }).traces;
     expect(trace!.errorX).toMatchObject({ plus: [0.2], minus: [0.1], thicknessPx: 1.2, capPx: 4 });
     expect(trace!.marker).toMatchObject({ symbol: 'circle-open', lineWidthPx: 1.6 });
     expect([axisKey(undefined, 'x'), axisKey('x', 'x'), axisKey('x2', 'x'), axisKey('y3', 'y')]).toEqual(['xaxis', 'xaxis', 'xaxis2', 'yaxis3']);
@@ -133,5 +133,51 @@ describe('symmetricRange', () => {
     expect(symmetricRange(38)).toEqual([-50, 50]);
     expect(symmetricRange(0.9)).toEqual([-1, 1]);
     expect(symmetricRange(0)).toEqual([-1, 1]);
+  });
+});
+
+describe('splitForCanvas: shapes, annotations and the title', () => {
+  const figure = {
+    data: [{ type: 'scatter', mode: 'lines', x: [0, 1], y: [0, 1] } as Data],
+    layout: {
+      font: { color: '#123', size: 12 },
+      title: { text: 'Symbol 0: <b>72</b> points<br>second line', font: { size: 13 } },
+      xaxis: { range: [0, 1] as [number, number] },
+      yaxis: { range: [0, 1] as [number, number] },
+      legend: { orientation: 'h' as const, x: 1, xanchor: 'right' as const, y: 1.02 },
+      shapes: [
+        { type: 'rect' as const, xref: 'x' as const, yref: 'paper' as const, x0: 0, x1: 0.2, y0: 0, y1: 1, fillcolor: 'rgba(0,0,0,0.1)', line: { width: 0 }, layer: 'below' as const },
+        { type: 'line' as const, xref: 'x2 domain' as never, yref: 'y2' as const, x0: 0, x1: 1, y0: 12.5, y1: 12.5, line: { color: 'red', width: 1.2, dash: 'dash' as const } },
+        { type: 'circle' as const, xref: 'x' as const, yref: 'y' as const, x0: 0, x1: 1, y0: 0, y1: 1 },
+      ],
+      annotations: [
+        { xref: 'x' as const, yref: 'paper' as const, x: 0.2, y: 1, xanchor: 'right' as const, yanchor: 'top' as const, text: 'CP 9 samples', showarrow: false },
+        { x: 0.5, y: 0.5, text: 'with an arrow', showarrow: true },
+      ],
+    },
+  };
+
+  it('moves rectangles, lines and arrow-less text to the canvas and leaves the rest to Plotly', () => {
+    const split = splitForCanvas(figure);
+    expect(split.shapes).toEqual([
+      { kind: 'rect', xRef: { space: 'data', axis: 'xaxis' }, yRef: { space: 'paper' }, x0: 0, x1: 0.2, y0: 0, y1: 1, fillColor: 'rgba(0,0,0,0.1)', line: null, below: true },
+      { kind: 'line', xRef: { space: 'domain', axis: 'xaxis2' }, yRef: { space: 'data', axis: 'yaxis2' }, x0: 0, x1: 1, y0: 12.5, y1: 12.5, fillColor: null, line: { color: 'red', widthPx: 1.2, dash: 'dash' }, below: false },
+    ]);
+    expect(split.layout.shapes).toEqual([figure.layout.shapes[2]]);
+    expect(split.annotations).toEqual([
+      { lines: ['CP 9 samples'], xRef: { space: 'data', axis: 'xaxis' }, yRef: { space: 'paper' }, x: 0.2, y: 1, xAnchor: 'right', yAnchor: 'top', fontPx: 12, color: '#123' },
+    ]);
+    expect(split.layout.annotations).toEqual([figure.layout.annotations[1]]);
+  });
+
+  it('turns the title into a plain-text caption and keeps it out of Plotly', () => {
+    const split = splitForCanvas(figure);
+    expect(split.caption).toBe('Symbol 0: 72 points second line');
+    expect(split.captionPx).toBe(13);
+    expect(split.legendBesideCaption).toBe(true);
+    expect(split.layout.title).toEqual({ text: '' });
+    // Unchanged input: exports still carry the title, shapes and annotations.
+    expect(figure.layout.title.text).toContain('Symbol 0');
+    expect(figure.layout.shapes).toHaveLength(3);
   });
 });
