@@ -55,3 +55,30 @@ test('exports a SigMF recording whose metadata parses and whose sha512 matches',
   expect(expected.sha512Hex).toBe(sha);
   expect(watch.consoleErrors).toEqual([]);
 });
+
+// Plot images: a canvas-drawn plot exports its complete figure as vectors — every trace, the title, the shapes —
+// not only the axes Plotly holds on screen; CSV carries every point (figureCsv).
+test('exports a canvas-drawn plot as SVG with its traces, and as CSV with every point', async ({ page, baseURL }) => {
+  const watch = watchPage(page, baseURL);
+  await page.goto('/');
+  const plot = page.getByTestId('time-samples-plot');
+  await waitForPlot(plot);
+  const points = await plot.evaluate((element) => ((element as HTMLElement & { figureData?: { x: ArrayLike<number> }[] }).figureData ?? []).map((t) => t.x.length));
+  const files: Download[] = [];
+  page.on('download', (download) => files.push(download));
+  await page.getByRole('button', { name: 'Time samples as SVG' }).click();
+  await page.getByRole('button', { name: 'Time samples curves as CSV' }).click();
+  await expect.poll(() => files.length).toBe(2);
+  const [svgFile, csvFile] = files;
+  const svg = await readFile((await svgFile!.path())!, 'utf8');
+  expect(svgFile!.suggestedFilename()).toMatch(/\.svg$/);
+  // Three line traces drawn as SVG paths with their points (I, Q, |x|), the peak marker, the title and the CP label.
+  const traceLines = [...svg.matchAll(/<path class="js-line" d="([^"]+)"/g)].map((m) => m[1]!.split('L').length);
+  expect(traceLines.length).toBeGreaterThanOrEqual(3);
+  expect(Math.max(...traceLines)).toBeGreaterThan(100);
+  expect(svg).toContain('Symbol 0: time samples');
+  expect(svg).toContain('CP 320 samples');
+  const csv = await readFile((await csvFile!.path())!, 'utf8');
+  expect(csv.trimEnd().split('\n')).toHaveLength(1 + points.reduce((a, b) => a + b, 0));
+  expect(watch.consoleErrors).toEqual([]);
+});
