@@ -7,7 +7,6 @@
  *   new snapshot; the status line says when a save failed, and earlier snapshots stay intact;
  * - permalink: the URL follows the configuration being edited (replaceState, no history entries).
  */
-import { checkConfigSchema } from '../../config/schemaIssues';
 import { defaultScenario, demoScenarios } from '../../scenarios/demoScenario';
 import { decodeConfigHash, encodeConfigHash } from '../persist/permalink';
 import type { WorkspaceArchive } from '../persist/workspaceArchive';
@@ -129,8 +128,13 @@ export function connectPersistence(store: AppStore, archive: WorkspaceArchive, o
 
 /** Keeps the URL's hash on the configuration being edited (valid drafts only). */
 export function connectPermalink(store: AppStore, replaceHash: (hash: string) => void): () => void {
+  // submittedDraft has passed the schema already (configSlice's applyDraft); an unchanged link is not written again.
+  let written: string | null = null;
   const write = (state: AppState) => {
-    if (state.submittedDraft !== null && checkConfigSchema(state.submittedDraft).issues.length === 0) replaceHash(encodeConfigHash(state.submittedDraft));
+    if (state.submittedDraft === null) return;
+    const hash = encodeConfigHash(state.submittedDraft);
+    if (hash !== written) replaceHash(hash);
+    written = hash;
   };
   write(store.getState());
   return store.subscribe((state, previous) => {
