@@ -153,6 +153,22 @@ test('follows waveform and modulation changes in the plots and the measurements'
   await expect(readout.locator('span').first()).toHaveText(`peak |x| ${peak.magnitude.toPrecision(4)}`);
   await page.mouse.move(box.x + box.width + 40, box.y + box.height + 40);
   await expect(readout).toBeHidden();
+
+  // A legend click hides a canvas-drawn curve (Plotly keeps the choice; the canvas redraws without it).
+  const inked = () =>
+    timePlot.evaluate((element) => {
+      const canvas = element.querySelector('canvas.plot-canvas-layer') as HTMLCanvasElement;
+      const pixels = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
+      let count = 0;
+      for (let i = 3; i < pixels.length; i += 4) if (pixels[i]! > 0) count += 1;
+      return count;
+    });
+  const inkedBefore = await inked();
+  const magnitudeEntry = timePlot.locator('g.traces').filter({ has: page.locator('.legendtext', { hasText: /^\|x\|$/ }) }).locator('.legendtoggle');
+  await magnitudeEntry.click();
+  await expect.poll(inked).toBeLessThan(inkedBefore * 0.9);
+  await magnitudeEntry.click();
+  await expect.poll(inked).toBe(inkedBefore);
   expect(watch.consoleErrors).toEqual([]);
 });
 

@@ -137,6 +137,8 @@ export function buildTimeSamplesFigure(series: TimeSamplesSeries, theme: PlotThe
         x: 0,
         xanchor: 'left',
       },
+      // A taller top margin: the legend above the plot sits below the tool bar Plotly shows on hover, not under it.
+      margin: { ...base.margin, t: 60 },
       xaxis: { ...base.xaxis, title: { text: 'time from waveform start (µs)' }, range: [series.cpStartUs, series.endUs] },
       // Symmetric about zero and rounded up to 1, 2, 2.5 or 5 × 10^k: the axis stays put while the peak moves a little.
       yaxis: { ...base.yaxis, title: { text: 'amplitude (formula scale)' }, range: symmetricRange(series.peak.magnitude) },
