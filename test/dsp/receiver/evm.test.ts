@@ -31,12 +31,46 @@ describe('EVM window W and positions (TS 36.101 Annex F.5)', () => {
     expect(w.lowAdvanceSamples - w.highAdvanceSamples).toBe(136 - 1);
   });
 
-  it('scales with oversampling and covers extended CP (Table F.5.4-1, from memory) and NR (50 % of the CP, from memory)', () => {
+  it('scales with oversampling (W at the nominal FFT size × oversampling)', () => {
     expect(evmWindowFor(plan({ bandwidthMHz: 5, oversampling: 2 })).windowLengthSamples).toBe(64);
-    expect(evmWindowFor(plan({ bandwidthMHz: 5, cyclicPrefix: 'extended' })).windowLengthSamples).toBe(124);
-    const nr = evmWindowFor(plan({ standard: 'nr', bandwidthMHz: 100, subcarrierSpacingKHz: 30, waveform: 'ofdm' }));
-    expect(nr.cpLengthSamples).toBe(288);
-    expect(nr.windowLengthSamples).toBe(144);
+  });
+
+  it('LTE extended CP: Table F.5.4-1 W = 28 / 58 / 124 / 250 / 504 at FFT 128…2048 [S2, public code giving CP − W]; 15 MHz 374 (from memory — verify)', () => {
+    const expected: Record<number, number> = { 1.4: 28, 3: 58, 5: 124, 10: 250, 20: 504 };
+    for (const [bw, w] of Object.entries(expected)) {
+      const window = evmWindowFor(plan({ bandwidthMHz: Number(bw), cyclicPrefix: 'extended' }));
+      expect(window.windowLengthSamples).toBe(w);
+      expect(window.source).toBe('TS 36.101 Table F.5.4-1');
+    }
+    const w15 = evmWindowFor(plan({ bandwidthMHz: 15, cyclicPrefix: 'extended' }));
+    expect(w15.windowLengthSamples).toBe(374);
+    expect(w15.source).toMatch(/from memory — verify/);
+  });
+
+  it('NR normal CP: W = 50 % of the CP, TS 38.101-1 Tables F.5.3-1/-2/-3 (V17.0.0) [S2, public transcriptions]', () => {
+    const nrPlan = (bw: number, scs: number, oversampling = 1) =>
+      evmWindowFor(plan({ standard: 'nr', bandwidthMHz: bw, subcarrierSpacingKHz: scs, waveform: 'ofdm', oversampling }));
+    // Table F.5.3-1, 15 kHz 5 MHz: FFT 512, CP 36, W 18.
+    expect([nrPlan(5, 15).cpLengthSamples, nrPlan(5, 15).windowLengthSamples]).toEqual([36, 18]);
+    // Table F.5.3-2, 30 kHz 5 MHz: FFT 256, CP 18, W 9; 100 MHz: FFT 4096, CP 288, W 144.
+    expect([nrPlan(5, 30).cpLengthSamples, nrPlan(5, 30).windowLengthSamples]).toEqual([18, 9]);
+    expect([nrPlan(100, 30).cpLengthSamples, nrPlan(100, 30).windowLengthSamples]).toEqual([288, 144]);
+    // Rounded at the nominal rate, then scaled: 30 kHz 5 MHz at 2× oversampling is 2 × 9, not a fresh 50 % of 36.
+    expect(nrPlan(5, 30, 2).windowLengthSamples).toBe(18);
+    expect(nrPlan(100, 30).source).toBe('TS 38.101-1 Tables F.5.3-1/-2/-3, 50 % of the CP');
+  });
+
+  it('NR extended CP (60 kHz): TS 38.101-1 Table F.5.4-1 (V17.0.0) [S2, public transcriptions], not 50 % of the CP', () => {
+    const ecp = (bw: number, oversampling = 1) =>
+      evmWindowFor(plan({ standard: 'nr', bandwidthMHz: bw, subcarrierSpacingKHz: 60, cyclicPrefix: 'extended', waveform: 'ofdm', oversampling }));
+    // At the table's FFT size the listed W comes back: 10 MHz CP 64 → 54, 20 MHz CP 128 → 106, 25 MHz CP 128 → 110, 100 MHz CP 512 → 440.
+    expect([ecp(10).cpLengthSamples, ecp(10).windowLengthSamples]).toEqual([64, 54]);
+    expect([ecp(20).cpLengthSamples, ecp(20).windowLengthSamples]).toEqual([128, 106]);
+    expect([ecp(25).cpLengthSamples, ecp(25).windowLengthSamples]).toEqual([128, 110]);
+    expect([ecp(100).cpLengthSamples, ecp(100).windowLengthSamples]).toEqual([512, 440]);
+    // 40 MHz: table FFT 1024, CP 256, W 220; at 2× oversampling the record holds CP 512 and W 2 × 220.
+    expect([ecp(40, 2).cpLengthSamples, ecp(40, 2).windowLengthSamples]).toEqual([512, 2 * 220]);
+    expect(ecp(20).source).toBe('TS 38.101-1 Table F.5.4-1 (extended CP)');
   });
 });
 
