@@ -12,7 +12,10 @@ export interface MprAllowance {
 
 /**
  * LTE UE power class 3, TS 36.101 Table 6.2.3-1 (REFERENCE.md §5.6, from memory — verify): N_RB allocated compared
- * with a per-bandwidth threshold (1.4: 5, 3: 4, 5: 8, 10: 12, 15: 16, 20: 18 RB).
+ * with a per-bandwidth threshold (1.4: 5, 3: 4, 5: 8, 10: 12, 15: 16, 20: 18 RB). No transcription of Table 6.2.3-1 itself
+ * was found (the stored copy of 36.101 V19.6.0 lacks its tables). The CA table 6.2.3A-1 as quoted by a public MPR
+ * calculator page uses the same 8 / 12 / 16 / 18 RB thresholds and the same QPSK ≤ 1, 16QAM ≤ 1 / ≤ 2, 64QAM ≤ 2 / ≤ 3 and
+ * 256QAM ≤ 5 dB steps per component carrier [S2 for the pattern only].
  */
 export const LTE_MPR_RB_THRESHOLD: Readonly<Record<number, number>> = { 1.4: 5, 3: 4, 5: 8, 10: 12, 15: 16, 20: 18 };
 
@@ -33,9 +36,11 @@ export function lteMprAllowance(bandwidthMHz: number, numRbAllocated: number, mo
 }
 
 /**
- * NR allocation class of TS 38.101-1 §6.2.2 (from memory — verify): with RB_start,low = max(1, ⌊L_CRB/2⌋) and
+ * NR allocation class of TS 38.101-1 §6.2.2: with RB_start,low = max(1, ⌊L_CRB/2⌋) and
  * RB_start,high = N_RB − RB_start,low − L_CRB, an allocation is "inner" when RB_start,low ≤ RB_start ≤ RB_start,high and
- * L_CRB ≤ ⌈N_RB/2⌉; "edge" when it has at most 2 RB and touches the lowest or highest RB; "outer" otherwise.
+ * L_CRB ≤ ⌈N_RB/2⌉; "edge" when it has at most 2 RB and touches the lowest or highest RB; "outer" otherwise
+ * ([S], clause text of a stored copy of 38.101-1 V19.6.0; the PC1 edge rule and the Rel-19 extended inner region there do
+ * not apply to power class 3 without the signalled extension).
  */
 export function nrAllocationClass(numRbGrid: number, startRb: number, numRb: number): 'inner' | 'outer' | 'edge' {
   const low = Math.max(1, Math.floor(numRb / 2));
@@ -45,7 +50,10 @@ export function nrAllocationClass(numRbGrid: number, startRb: number, numRb: num
   return 'outer';
 }
 
-/** NR PC3 MPR headline values [edge, outer, inner], dB (REFERENCE.md §5.6, from memory — verify). One value = all classes. */
+/**
+ * NR PC3 MPR headline values [edge, outer, inner], dB (REFERENCE.md §5.6, from memory — verify; the stored copy of
+ * 38.101-1 V19.6.0 names Table 6.2.2-1 but does not reproduce it, and no other transcription was found). One value = all classes.
+ */
 const NR_MPR: Record<'dft-s-ofdm' | 'ofdm', Partial<Record<Modulation, readonly number[]>>> = {
   'dft-s-ofdm': { 'pi/2-bpsk': [3.5, 1.2, 0.2], qpsk: [3.5, 1, 0], '16qam': [3.5, 2, 1], '64qam': [3.5, 2.5, 2.5], '256qam': [4.5] },
   ofdm: { qpsk: [3.5, 3, 1.5], '16qam': [3.5, 3, 2], '64qam': [3.5], '256qam': [6.5] },

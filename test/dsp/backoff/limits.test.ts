@@ -50,6 +50,18 @@ describe('MPR allowance as context (REFERENCE.md §5.6, values from memory — v
     expect(lteMprAllowance(1.4, 6, 'qpsk')!.maxMprDb).toBe(1);
   });
 
+  it('NR allocation classes follow TS 38.101-1 §6.2.2 [S, clause text of V19.6.0]: inner, edge and outer boundaries', () => {
+    // N_RB 51, L_CRB 10: RB_start,low = 5, RB_start,high = 51 − 5 − 10 = 36.
+    expect([4, 5, 36, 37].map((start) => nrAllocationClass(51, start, 10))).toEqual(['outer', 'inner', 'inner', 'outer']);
+    // L_CRB ≤ ⌈N_RB/2⌉: 26 of 52 RB at RB_start 13 is inner (low 13 = high 13); 27 RB never is.
+    expect(nrAllocationClass(52, 13, 26)).toBe('inner');
+    expect(nrAllocationClass(52, 12, 27)).toBe('outer');
+    // Edge: at most 2 RB at the lowermost or uppermost edge; 1 RB one RB in from the edge is inner (RB_start,low = 1).
+    expect([nrAllocationClass(51, 0, 1), nrAllocationClass(51, 50, 1), nrAllocationClass(51, 49, 2)]).toEqual(['edge', 'edge', 'edge']);
+    expect(nrAllocationClass(51, 1, 1)).toBe('inner');
+    expect(nrAllocationClass(51, 0, 3)).toBe('outer');
+  });
+
   it('NR TS 38.101-1 Table 6.2.2-1: DFT-s-OFDM QPSK 3.5 / 1 / 0, CP-OFDM QPSK 3.5 / 3 / 1.5 for edge / outer / inner', () => {
     expect(nrAllocationClass(51, 10, 10)).toBe('inner');
     expect(nrAllocationClass(51, 0, 51)).toBe('outer');
