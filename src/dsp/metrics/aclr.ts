@@ -31,7 +31,8 @@ export interface AclrPlan {
  *   defined for 1.4 and 3 MHz.
  * - LTE downlink, TS 36.104 §6.6.2: E-UTRA at ±BW and ±2·BW, UTRA at ±(BW/2 + 2.5 MHz) and ±(BW/2 + 7.5 MHz).
  * - NR uplink, TS 38.101-1 §6.5.2.4: NR at ±BW with the measurement BW = transmission bandwidth configuration
- *   (N_RB·12·Δf), and UTRA_ACLR1/2 at the LTE offsets (FR1).
+ *   (N_RB·12·Δf) (from memory — verify), and UTRA_ACLR1/2 at 2.5 and 7.5 MHz beyond the NR channel edge, i.e. the LTE
+ *   offsets (FR1) [S2, the test-applicability text of TS 38.521-1 §6.5.2.4.2 as quoted in a public study summary].
  * - NR downlink, TS 38.104 §6.6.3: NR at ±BW and ±2·BW, UTRA as above.
  * - custom: a same-bandwidth neighbour at ±(fftSize·Δf), square over the transmission BW (our convention).
  */
@@ -60,9 +61,11 @@ export function aclrPlanFor(numerology: Numerology): AclrPlan {
         : 'TS 38.101-1 §6.5.2.4 (from memory — verify)';
   pair(sameKey, `${sameLabel} ACLR1`, bw, assignedFilter, clause);
   if (downlink) pair(`${sameKey}2`, `${sameLabel} ACLR2`, 2 * bw, assignedFilter, clause);
-  pair('utra1', 'UTRA ACLR1', bw / 2 + 2.5e6, UTRA_FILTER, clause);
+  // NR uplink UTRA offsets (2.5 / 7.5 MHz beyond the channel edge) are [S2]; the rest of the NR clause is from memory.
+  const utraClause = numerology.standard === 'nr' && !downlink ? 'TS 38.101-1 §6.5.2.4.2 (offsets [S2]; filter from memory — verify)' : clause;
+  pair('utra1', 'UTRA ACLR1', bw / 2 + 2.5e6, UTRA_FILTER, utraClause);
   const narrowLte = numerology.standard === 'lte' && !downlink && bw < 5e6;
-  if (!narrowLte) pair('utra2', 'UTRA ACLR2', bw / 2 + 7.5e6, UTRA_FILTER, clause);
+  if (!narrowLte) pair('utra2', 'UTRA ACLR2', bw / 2 + 7.5e6, UTRA_FILTER, utraClause);
   return { assignedFilter, channels };
 }
 

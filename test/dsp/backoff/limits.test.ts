@@ -22,12 +22,18 @@ describe('default EVM and ACLR limits (REFERENCE.md §5.4, §5.5)', () => {
     expect(() => defaultEvmLimitFor(lteUl, ['bpsk'])).toThrow(/--evm-limit/);
   });
 
-  it('ACLR: UE 30 / 33 / 36 dB (E-UTRA or NR / UTRA1 / UTRA2), BS 45 dB (TS 36.101 §6.6.2.3, TS 38.101-1 §6.5.2.4; from memory)', () => {
+  it('ACLR: LTE UE 30 / 33 / 36 dB (TS 36.101 §6.6.2.3, from memory — verify), BS 45 dB (TS 36.104 §6.6.2 / 38.104 §6.6.3, from memory — verify)', () => {
     expect(defaultAclrLimit(lteUl, 'eutraLower')!.value).toBe(30);
     expect(defaultAclrLimit(lteUl, 'utra1Upper')!.value).toBe(33);
     expect(defaultAclrLimit(lteUl, 'utra2Lower')!.value).toBe(36);
-    expect(defaultAclrLimit(nrUl, 'nrUpper')!.value).toBe(30);
+    expect(defaultAclrLimit(lteUl, 'eutraLower')!.source).toMatch(/from memory — verify/);
     expect(defaultAclrLimit(nrDl, 'nr2Upper')!.value).toBe(45);
+  });
+
+  it('ACLR: NR UE PC3 NR_ACLR 30 dB (TS 38.101-1 §6.5.2.4.1), UTRA_ACLR1 33 / ACLR2 36 dB (§6.5.2.4.2) [S2, public summaries]', () => {
+    expect(defaultAclrLimit(nrUl, 'nrUpper')).toEqual({ value: 30, source: 'TS 38.101-1 §6.5.2.4.1, power class 3 [S2]' });
+    expect(defaultAclrLimit(nrUl, 'utra1Lower')).toEqual({ value: 33, source: 'TS 38.101-1 §6.5.2.4.2 [S2]' });
+    expect(defaultAclrLimit(nrUl, 'utra2Upper')).toEqual({ value: 36, source: 'TS 38.101-1 §6.5.2.4.2 [S2]' });
   });
 });
 

@@ -69,6 +69,10 @@ describe('adjacent channels of the standards (REFERENCE.md §5.5, from memory �
     // 273 RB × 12 × 30 kHz = 98.28 MHz (TS 38.101-1 Table 5.3.2-1).
     expect(nr.assignedFilter).toEqual({ kind: 'rect', bandwidthHz: 273 * 12 * 30e3 });
     expect(nr.channels.find((c) => c.key === 'nrUpper')!.offsetHz).toBe(100e6);
+    // UTRA_ACLR1/2 at 2.5 / 7.5 MHz beyond the NR channel edge (TS 38.101-1 §6.5.2.4.2 via 38.521-1 text) [S2].
+    expect(nr.channels.find((c) => c.key === 'utra1Upper')!.offsetHz).toBe(50e6 + 2.5e6);
+    expect(nr.channels.find((c) => c.key === 'utra2Lower')!.offsetHz).toBe(-(50e6 + 7.5e6));
+    expect(nr.channels.find((c) => c.key === 'utra1Upper')!.source).toMatch(/6\.5\.2\.4\.2 \(offsets \[S2\]/);
   });
 
   it('the UTRA filter follows the raised-cosine power response and integrates to 1/T = 3.84 MHz (derived)', () => {
