@@ -2,12 +2,14 @@ import type { Modulation } from '../modulation/constellations';
 
 /**
  * RMS EVM limits per modulation, in percent.
- * - LTE UE, TS 36.101 §6.5.2.1 Table 6.5.2.1.1-1: QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5 (Rel-14+).
- * - LTE BS, TS 36.104 §6.5.2 Table 6.5.2-1: QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5, 1024QAM 2.5 (Rel-15+).
- * - NR UE, TS 38.101-1 §6.4.2.1 Table 6.4.2.1-1: π/2-BPSK 30, QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5.
- * - NR BS, TS 38.104 Table 6.5.2.2-1: QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5 [S2]; 1024QAM 2.5 (from memory — verify).
- * The uplink is held to the UE limits and the downlink to the BS limits. Values per REFERENCE.md §5.4; cells marked there
- * "from memory — verify" stay so. Plain BPSK has no PUSCH/PDSCH limit and custom numerologies none at all.
+ * - LTE UE, TS 36.101 §6.5.2.1 Table 6.5.2.1.1-1: QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5 (Rel-14+) (from memory — verify).
+ * - LTE BS, TS 36.104 §6.5.2 Table 6.5.2-1: QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5, 1024QAM 2.5 (Rel-15+) (from memory — verify).
+ * - NR UE, TS 38.101-1 §6.4.2.1 Table 6.4.2.1-1: π/2-BPSK 30, QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5 (from memory — verify).
+ * - NR BS, TS 38.104 Table 6.5.2.2-1: QPSK 17.5, 16QAM 12.5, 64QAM 8, 256QAM 3.5 [S2: a public RF reference page quoting the
+ *   table and a vendor radio-unit manual listing the same four limits]; 1024QAM 2.5 (from memory — verify, not found).
+ * The stored copies of 36.101 and 38.101-1 (V19.6.0) searched for this lack their tables, so the UE rows could not be read.
+ * The uplink is held to the UE limits and the downlink to the BS limits (REFERENCE.md §5.4). Plain BPSK has no PUSCH/PDSCH
+ * limit and custom numerologies none at all.
  */
 /** A limit and where it comes from. */
 export interface EvmLimit {
