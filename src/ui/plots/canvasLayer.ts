@@ -211,6 +211,7 @@ export function createCanvasLayer(gd: HTMLDivElement, readout: HTMLElement): Can
   canvas.setAttribute('aria-hidden', 'true');
   let scene: CanvasScene = { traces: [], shapes: [], annotations: [] };
   let listening = false;
+  let disposed = false;
   let frame = 0;
 
   const visible = (trace: CanvasTrace) => (div._fullData?.[trace.traceIndex]?.visible ?? true) === true;
@@ -221,6 +222,8 @@ export function createCanvasLayer(gd: HTMLDivElement, readout: HTMLElement): Can
   };
 
   const render = () => {
+    // Plotly keeps its listeners until the div is purged: a disposed layer must not bring its canvas back.
+    if (disposed) return;
     const container = div.querySelector('.svg-container');
     const plotLayer = container?.querySelector('svg.main-svg');
     if (container == null || plotLayer == null) return;
@@ -294,6 +297,7 @@ export function createCanvasLayer(gd: HTMLDivElement, readout: HTMLElement): Can
       render();
     },
     dispose: () => {
+      disposed = true;
       if (frame !== 0) cancelAnimationFrame(frame);
       gd.removeEventListener('pointermove', onPointerMove);
       gd.removeEventListener('pointerleave', hide);
