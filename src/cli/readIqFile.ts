@@ -16,6 +16,8 @@ export interface ReadIqFileOptions {
   /** For a raw file without sidecar: its format and rate. */
   readonly rawFormat?: string | undefined;
   readonly rateHz?: number | undefined;
+  /** Keep the decoded samples in `result.iq` (for analysis; up to MAX_IN_MEMORY_SAMPLES). */
+  readonly keepSamples?: boolean | undefined;
   readonly onProgress?: ((doneBytes: number, totalBytes: number) => void) | undefined;
 }
 
@@ -55,19 +57,16 @@ export function readIqFile(path: string, options: ReadIqFileOptions = {}): { sou
     if (size > MAX_CSV_SAMPLES * 64) {
       throw new DspError('INVALID_FILE', `${dataPath}: ${size} bytes is more than a CSV of ${MAX_CSV_SAMPLES} samples can be; CSV is for short records.`, { problem: 'size' });
     }
-    return readCsvSource(new Uint8Array(readFileSync(dataPath)), dataPath, sidecar, { ignoreChecksum: options.ignoreChecksum, createHasher: createNodeSha512 });
+    const readOptions = { ignoreChecksum: options.ignoreChecksum, createHasher: createNodeSha512, keepSamples: options.keepSamples };
+    return readCsvSource(new Uint8Array(readFileSync(dataPath)), dataPath, sidecar, readOptions, options.rateHz);
   }
   if (sidecar) {
     const source = describeRawSource(sidecar.text, sidecar.name, dataPath, fileSize(dataPath, 'raw IQ'));
     return { source, result: streamData(dataPath, source, options) };
   }
   if (options.rawFormat !== undefined) {
-    const datatype = BARE_RAW_FORMATS[options.rawFormat];
-    if (!datatype) {
-      throw new DspError('INVALID_CONFIG', `--raw-format "${options.rawFormat}" is not a raw format; allowed: ${Object.keys(BARE_RAW_FORMATS).join(', ')}.`, { field: 'raw-format' });
-    }
-    if (options.rateHz === undefined) throw new DspError('INVALID_CONFIG', '--raw-format needs --rate <Hz> as well.', { field: 'rate' });
-    const source = describeBareRawSource(datatype, options.rateHz, dataPath, fileSize(dataPath, 'raw IQ'));
+    const datatype = bareRawDatatype(options.rawFormat, options.rateHz);
+    const source = describeBareRawSource(datatype, options.rateHz!, dataPath, fileSize(dataPath, 'raw IQ'));
     return { source, result: streamData(dataPath, source, options) };
   }
   throw new DspError(
@@ -77,8 +76,21 @@ export function readIqFile(path: string, options: ReadIqFileOptions = {}): { sou
   );
 }
 
+/**
+ * The datatype `--raw-format` names, for a raw file without sidecar, which also needs `--rate`.
+ * @throws DspError INVALID_CONFIG naming --raw-format and the allowed names, or saying --rate is missing
+ */
+export function bareRawDatatype(rawFormat: string, rateHz: number | undefined): IqDatatype {
+  const datatype = BARE_RAW_FORMATS[rawFormat];
+  if (!datatype) {
+    throw new DspError('INVALID_CONFIG', `--raw-format "${rawFormat}" is not a raw format; allowed: ${Object.keys(BARE_RAW_FORMATS).join(', ')}.`, { field: 'raw-format' });
+  }
+  if (rateHz === undefined) throw new DspError('INVALID_CONFIG', '--raw-format needs --rate <Hz> as well.', { field: 'rate' });
+  return datatype;
+}
+
 function streamData(dataPath: string, source: IqSource, options: ReadIqFileOptions): IqReadResult {
-  const reader = createIqDataReader(source, { ignoreChecksum: options.ignoreChecksum, createHasher: createNodeSha512 });
+  const reader = createIqDataReader(source, { ignoreChecksum: options.ignoreChecksum, createHasher: createNodeSha512, keepSamples: options.keepSamples });
   const fd = openSync(dataPath, 'r');
   try {
     const chunk = new Uint8Array(4 << 20);

@@ -75,9 +75,7 @@ export function describeRawSource(sidecarText: string, sidecarName: string, data
 
 /** Raw interleaved IQ with no sidecar: the caller says what it holds. */
 export function describeBareRawSource(datatype: IqDatatype, sampleRateHz: number, dataName: string, dataFileBytes: number): IqSource {
-  if (!(Number.isFinite(sampleRateHz) && sampleRateHz > 0)) {
-    throw new DspError('INVALID_CONFIG', `rate: ${sampleRateHz} is not a positive, finite sample rate in Hz.`, { field: 'rate' });
-  }
+  checkedBareRate(sampleRateHz);
   const numSamples = samplesInBytes(datatype, dataFileBytes, dataName);
   return {
     container: 'raw',
@@ -95,6 +93,13 @@ export function describeBareRawSource(datatype: IqDatatype, sampleRateHz: number
     formatLabel: `raw ${datatype} (${datatypeInfo(datatype).description}), no sidecar`,
     warnings: [`${dataName}: no sidecar; format and rate as given on the command line, nothing to verify them against.`],
   };
+}
+
+function checkedBareRate(sampleRateHz: number): number {
+  if (!(Number.isFinite(sampleRateHz) && sampleRateHz > 0)) {
+    throw new DspError('INVALID_CONFIG', `rate: ${sampleRateHz} is not a positive, finite sample rate in Hz.`, { field: 'rate' });
+  }
+  return sampleRateHz;
 }
 
 /** WAV: the first bytes of the file (header), its size, and our sidecar when there is one. */
@@ -323,12 +328,16 @@ function sha512Short(hex: string): string {
   return `${hex.slice(0, 16)}…`;
 }
 
-/** CSV: the whole text, with an optional sidecar. Returns the source and the checked read. */
+/**
+ * CSV: the whole text, with an optional sidecar. Returns the source and the checked read.
+ * @param bareRateHz sample rate of a CSV without sidecar, as the user gave it (ignored when there is a sidecar)
+ */
 export function readCsvSource(
   bytes: Uint8Array,
   dataName: string,
   sidecar?: { readonly text: string; readonly name: string },
   options: ReadOptions = {},
+  bareRateHz?: number,
 ): { source: IqSource; result: IqReadResult } {
   const iq = decodeCsvIq(new TextDecoder('utf-8', { fatal: false }).decode(bytes), dataName);
   const numSamples = iq.length / 2;
@@ -348,13 +357,17 @@ export function readCsvSource(
         dataOffsetBytes: 0,
         dataLengthBytes: bytes.length,
         numSamples,
-        sampleRateHz: undefined,
+        sampleRateHz: bareRateHz === undefined ? undefined : checkedBareRate(bareRateHz),
         sha512Hex: undefined,
         centerFrequencyHz: undefined,
         description: undefined,
         crestline: {},
         formatLabel: 'CSV (I,Q per line), no sidecar',
-        warnings: [`${dataName}: no sidecar; the sample rate is not known.`],
+        warnings: [
+          bareRateHz === undefined
+            ? `${dataName}: no sidecar; the sample rate is not known.`
+            : `${dataName}: no sidecar; rate as given on the command line, nothing to verify it against.`,
+        ],
       };
   const hasher = options.createHasher ? options.createHasher() : createSha512();
   const sha512Hex = hasher.update(bytes).digestHex();

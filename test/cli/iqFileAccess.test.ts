@@ -29,7 +29,7 @@ describe('iqFileAccess: the SigMF pair and file sizes both IQ readers use', () =
     const dir = mkdtempSync(join(tmpdir(), 'crestline-readers-'));
     mkdirSync(join(dir, 'folder.sigmf-data'));
     // Messages as the readers wrote them before sharing this module (test/cli/analyze.test.ts, inspect.test.ts).
-    const recording = dspErrorOf(() => readRecording(join(dir, 'folder.sigmf-data'), 1e6));
+    const recording = dspErrorOf(() => readRecording(join(dir, 'folder.sigmf-data'), 1e6, {}));
     expect(recording.message).toBe(`Cannot read IQ file "${join(dir, 'folder.sigmf-data')}": not a regular file`);
     expect(recording.code).toBe('INVALID_FILE');
     const missing = dspErrorOf(() => readIqFile(join(dir, 'nothing.sigmf-meta')));
