@@ -5,6 +5,8 @@ import type { IqDatatype } from '../io/iqDatatypes';
 import { MAX_CSV_SAMPLES } from '../io/csvIq';
 import { MAX_SIDECAR_BYTES } from '../io/iqSidecar';
 import { MAX_META_BYTES } from '../io/sigmfMeta';
+import { findSigmfRecording, SIGMF_ARCHIVE_SUFFIX } from '../io/sigmfArchive';
+import { listUstarMembers } from '../io/ustar';
 import { hasSigmfSuffix, regularFileSizeBytes, sigmfPathsOf } from './iqFileAccess';
 import { createNodeSha512 } from './nodeHash';
 
@@ -24,11 +26,7 @@ export interface ReadIqFileOptions {
 /** Reads and validates an IQ file of any supported kind, streaming its data; returns what it holds. */
 export function readIqFile(path: string, options: ReadIqFileOptions = {}): { source: IqSource; result: IqReadResult } {
   const lower = path.toLowerCase();
-  if (lower.endsWith('.sigmf')) {
-    throw new DspError('INVALID_FILE', `${path}: SigMF archives (.sigmf, tar) are not read directly; extract the .sigmf-meta and .sigmf-data first.`, {
-      problem: 'unsupported',
-    });
-  }
+  if (lower.endsWith(SIGMF_ARCHIVE_SUFFIX)) return readSigmfArchive(path, options);
   if (hasSigmfSuffix(path)) {
     const { metaPath, dataPath } = sigmfPathsOf(path);
     const metaText = readText(metaPath, MAX_META_BYTES, 'SigMF metadata');
@@ -71,7 +69,7 @@ export function readIqFile(path: string, options: ReadIqFileOptions = {}): { sou
   }
   throw new DspError(
     'INVALID_FILE',
-    `${path}: cannot tell the format: expected .sigmf-meta/.sigmf-data, .wav, .csv, or raw .iq with its .iq.json sidecar (for a raw file without sidecar give --raw-format and --rate).`,
+    `${path}: cannot tell the format: expected .sigmf-meta/.sigmf-data, a .sigmf archive, .wav, .csv, or raw .iq with its .iq.json sidecar (for a raw file without sidecar give --raw-format and --rate).`,
     { problem: 'unknown-format' },
   );
 }
@@ -89,14 +87,41 @@ export function bareRawDatatype(rawFormat: string, rateHz: number | undefined): 
   return datatype;
 }
 
-function streamData(dataPath: string, source: IqSource, options: ReadIqFileOptions): IqReadResult {
+/**
+ * A SigMF archive (`.sigmf`, tar): lists its members from the headers, finds the one Recording, reads its metadata
+ * member and streams its data member, with the checks of a SigMF pair. Messages name `ARCHIVE:MEMBER`.
+ */
+function readSigmfArchive(path: string, options: ReadIqFileOptions): { source: IqSource; result: IqReadResult } {
+  const size = fileSize(path, 'SigMF archive');
+  const fd = openSync(path, 'r');
+  try {
+    const readAt = (offsetBytes: number, lengthBytes: number): Uint8Array => {
+      const out = new Uint8Array(lengthBytes);
+      const n = readSync(fd, out, 0, lengthBytes, offsetBytes);
+      return out.subarray(0, n);
+    };
+    const { meta, data } = findSigmfRecording(listUstarMembers(size, readAt, path), path);
+    const metaName = `${path}:${meta.name}`;
+    if (meta.sizeBytes > MAX_META_BYTES) throw new DspError('INVALID_FILE', `${metaName}: the SigMF metadata is ${meta.sizeBytes} bytes, more than the ${MAX_META_BYTES} allowed.`, { problem: 'size' });
+    const metaText = new TextDecoder('utf-8', { fatal: false }).decode(readAt(meta.dataOffsetBytes, meta.sizeBytes));
+    const source = describeSigmfSource(metaText, metaName, `${path}:${data.name}`, data.sizeBytes);
+    return { source, result: streamData(path, source, options, { offsetBytes: data.dataOffsetBytes, lengthBytes: data.sizeBytes }) };
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** Streams the data file, or the byte range of it that holds the data (an archive member), through the checks. */
+function streamData(dataPath: string, source: IqSource, options: ReadIqFileOptions, range?: { offsetBytes: number; lengthBytes: number }): IqReadResult {
   const reader = createIqDataReader(source, { ignoreChecksum: options.ignoreChecksum, createHasher: createNodeSha512, keepSamples: options.keepSamples });
   const fd = openSync(dataPath, 'r');
   try {
     const chunk = new Uint8Array(4 << 20);
     let done = 0;
+    const total = range?.lengthBytes ?? Number.POSITIVE_INFINITY;
     for (;;) {
-      const n = readSync(fd, chunk, 0, chunk.length, null);
+      const want = Math.min(chunk.length, total - done);
+      const n = want <= 0 ? 0 : readSync(fd, chunk, 0, want, range ? range.offsetBytes + done : null);
       if (n === 0) break;
       reader.push(chunk.subarray(0, n));
       done += n;

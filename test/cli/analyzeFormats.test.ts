@@ -111,7 +111,7 @@ describe('crestline analyze: errors name the file or option and what is allowed'
     writeFileSync(foreign, readFileSync(raw.dataPath));
     const unknown = await runCli(['analyze', '--config', raw.configPath, '--iq', foreign]);
     expect(unknown.code).toBe(2);
-    expect(unknown.stderr).toMatch(/capture\.bin: cannot tell the format: expected \.sigmf-meta\/\.sigmf-data, \.wav, \.csv, or raw \.iq/);
+    expect(unknown.stderr).toMatch(/capture\.bin: cannot tell the format: expected \.sigmf-meta\/\.sigmf-data, a \.sigmf archive, \.wav, \.csv, or raw \.iq/);
     const badFormat = await runCli(['analyze', '--config', raw.configPath, '--iq', foreign, '--raw-format', 'f64', '--rate', '7.68e6']);
     expect(badFormat.code).toBe(2);
     expect(badFormat.stderr).toMatch(/--raw-format "f64" is not a raw format; allowed: f32le, i16le, i16be, i8, u8/);

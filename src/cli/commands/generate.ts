@@ -41,7 +41,7 @@ export function registerGenerate(program: Command, io: CliIo): void {
     .command('generate')
     .description('generate a configured waveform and write it as an IQ file (default: SigMF cf32_le at the waveform rate)')
     .requiredOption('--config <file>', 'waveform configuration (JSON)')
-    .requiredOption('--out <base>', 'output base name: writes BASE.sigmf-meta and BASE.sigmf-data (or BASE.iq/.wav/.csv with a .json sidecar)')
+    .requiredOption('--out <base>', 'output base name: writes BASE.sigmf-meta and BASE.sigmf-data (or BASE.iq/.wav/.csv with a .json sidecar, or the archive BASE.sigmf)')
     .option('--format <format>', `file format: ${EXPORT_FORMATS.join('|')}`, 'sigmf-cf32')
     .option('--level-dbfs <dB>', 'level in dBFS (0 dBFS = complex magnitude 1), RMS unless --level-mode peak')
     .option('--level-mode <mode>', 'rms|peak (with --level-dbfs), auto (RMS from the CCDF at 1e-4 with 1 dB margin) or formula (unscaled)')

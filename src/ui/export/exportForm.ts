@@ -45,6 +45,7 @@ export const FORMAT_LABELS: Record<ExportFormat, string> = {
   'sigmf-cf32': 'SigMF, complex float32 LE (cf32_le)',
   'sigmf-ci16': 'SigMF, complex int16 LE (ci16_le)',
   'sigmf-ci8': 'SigMF, complex int8 (ci8)',
+  'sigmf-archive': 'SigMF archive (.sigmf tar), complex float32 LE (cf32_le)',
   'raw-f32': 'Raw IQ, float32 LE + JSON sidecar',
   'raw-i16le': 'Raw IQ, int16 LE + JSON sidecar',
   'raw-i16be': 'Raw IQ, int16 BE + JSON sidecar',
@@ -54,7 +55,8 @@ export const FORMAT_LABELS: Record<ExportFormat, string> = {
   csv: 'CSV text, one I,Q pair per line',
 };
 
-export const FORMAT_ORDER: readonly ExportFormat[] = EXPORT_FORMATS;
+/** Formats the dialog offers: all but the SigMF archive, which only `crestline generate` writes so far. */
+export const FORMAT_ORDER: readonly ExportFormat[] = EXPORT_FORMATS.filter((f) => exportFormatInfo(f).archiveSuffix === undefined);
 
 /** What "default" means for a format (src/io's rule: formula scale for SigMF cf32, auto otherwise). */
 export function defaultLevelLabel(format: ExportFormat): string {
