@@ -119,7 +119,7 @@ test('follows waveform and modulation changes in the plots and the measurements'
     .toBe(4);
   expect(await renderCount(constellation)).toBeGreaterThan(rendersBefore);
   // The title carries the EVM readout of the received points.
-  await expect(plotCaption(constellation)).toHaveText(/^Symbol 0: 480 QPSK data symbols; received EVM \d+\.\d+ %$/);
+  await expect(plotCaption(constellation)).toHaveText(/^Symbol 0: 480 QPSK data symbols; received EVM \d+\.\d+\s%$/);
   // The EVM limit follows the modulation: QPSK 17.5 % (TS 36.101 Table 6.5.2.1.1-1).
   await expect(page.locator('[data-metric="evm"] .metric-limit')).toContainText('17.5 %');
 

@@ -320,21 +320,6 @@ export function splitForCanvas(figure: { data: Data[]; layout: Partial<Layout> }
     return legendProxy(trace);
   });
   const layout: Loose = { ...figure.layout };
-  const axes = new Set(canvasTraces.flatMap((t) => [t.xAxis, t.yAxis]));
-  for (const key of axes) {
-    const axis = obj(layout[key]);
-    if (Array.isArray(axis.range) && axis.range.length === 2) continue;
-    const letter = key[0] as 'x' | 'y';
-    const on = canvasTraces.filter((t) => (letter === 'x' ? t.xAxis : t.yAxis) === key);
-    const values = function* () {
-      for (const t of on) yield* traceValues(t, letter);
-      yield* shapeValues(figure.layout, key);
-    };
-    // Values are padded and rounded; positions (x) run edge to edge unless markers sit at the ends.
-    const pad = letter === 'y' || on.some((t) => t.kind === 'scatter' && t.marker !== null);
-    const range = autoRange(values(), { toZero: axis.rangemode === 'tozero', log: axis.type === 'log', pad, round: letter === 'y' });
-    layout[key] = { ...axis, range, autorange: false };
-  }
 
   const shapes: CanvasShape[] = [];
   const plotlyShapes = ((figure.layout.shapes ?? []) as Loose[]).filter((shape) => {
@@ -350,7 +335,28 @@ export function splitForCanvas(figure: { data: Data[]; layout: Partial<Layout> }
   });
   if (figure.layout.shapes !== undefined) layout.shapes = plotlyShapes;
   if (figure.layout.annotations !== undefined) layout.annotations = plotlyAnnotations;
-  // Axes of moved shapes need explicit ranges too (they are already there in every figure we draw).
+
+  // Every axis the canvas places something on in data units needs an explicit range: Plotly no longer sees that data.
+  const dataAxis = (ref: CanvasRef) => (ref.space === 'data' ? [ref.axis] : []);
+  const axes = new Set([
+    ...canvasTraces.flatMap((t) => [t.xAxis, t.yAxis]),
+    ...[...shapes, ...annotations].flatMap((item) => [...dataAxis(item.xRef), ...dataAxis(item.yRef)]),
+  ]);
+  for (const key of axes) {
+    const axis = obj(layout[key]);
+    if (Array.isArray(axis.range) && axis.range.length === 2) continue;
+    const letter = key[0] as 'x' | 'y';
+    const on = canvasTraces.filter((t) => (letter === 'x' ? t.xAxis : t.yAxis) === key);
+    const values = function* () {
+      for (const t of on) yield* traceValues(t, letter);
+      yield* shapeValues(figure.layout, key);
+    };
+    // Values are padded and rounded; positions (x) run edge to edge unless markers sit at the ends.
+    const pad = letter === 'y' || on.some((t) => t.kind === 'scatter' && t.marker !== null);
+    const range = autoRange(values(), { toZero: axis.rangemode === 'tozero', log: axis.type === 'log', pad, round: letter === 'y' });
+    layout[key] = { ...axis, range, autorange: false };
+  }
+
   const title = obj(figure.layout.title);
   const caption = typeof figure.layout.title === 'string' ? figure.layout.title : str(title.text, '');
   if (figure.layout.title !== undefined) layout.title = { text: '' };

@@ -116,7 +116,8 @@ export function buildConstellationFigure(
   let readout = '';
   if (received !== null) {
     const shown = everyKth(received.inPhase, MAX_RECEIVED_POINTS).length;
-    readout = `; received EVM ${received.evmPercent.toFixed(received.evmPercent < 1 ? 3 : 2)} %${shown < received.inPhase.length ? ` (${shown} of ${received.inPhase.length} shown)` : ''}`;
+    // A no-break space keeps the value and its unit on one line when the caption wraps.
+    readout = `; received EVM ${received.evmPercent.toFixed(received.evmPercent < 1 ? 3 : 2)}\u00a0%${shown < received.inPhase.length ? ` (${shown} of ${received.inPhase.length} shown)` : ''}`;
     data.push({
       type: 'scatter',
       mode: 'markers',

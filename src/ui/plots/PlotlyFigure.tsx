@@ -93,6 +93,8 @@ export function PlotlyFigure({ figure, label, testId, epoch, drawing = 'svg' }: 
           draw();
           return undefined;
         }
+        // Unknown until this relayout is done: a newer figure arriving meanwhile lays out its own frame.
+        frameKey.current = null;
         // uirevision: a zoom or legend choice the user made survives a new configuration.
         return Plotly.react(box, split.plotlyData, { ...split.layout, uirevision: 'kept' }, plotConfig).then(() => {
           frameKey.current = key;

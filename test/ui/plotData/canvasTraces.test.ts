@@ -168,6 +168,8 @@ describe('splitForCanvas: shapes, annotations and the title', () => {
       { lines: ['CP 9 samples'], xRef: { space: 'data', axis: 'xaxis' }, yRef: { space: 'paper' }, x: 0.2, y: 1, xAnchor: 'right', yAnchor: 'top', fontPx: 12, color: '#123' },
     ]);
     expect(split.layout.annotations).toEqual([figure.layout.annotations[1]]);
+    // The limit line is the only thing on y2: that axis still gets a range (12.5 ± 5 %, rounded to steps of 1).
+    expect(split.layout.yaxis2?.range).toEqual([11, 14]);
   });
 
   it('turns the title into a plain-text caption and keeps it out of Plotly', () => {

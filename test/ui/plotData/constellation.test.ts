@@ -68,7 +68,7 @@ describe('buildConstellationFigure', () => {
     expectCloseArray(points!.inPhase, ideal.inPhase.map((v) => 1.3 * v), absTol, 'received I of symbol 1');
     const figure = buildConstellationFigure(ideal, plotThemes.light, 'QPSK', { ...points!, evmPercent: 30 });
     expect(figure.data.map((t) => t.name)).toEqual(['ideal', 'received']);
-    expect(figure.layout.title).toMatchObject({ text: 'Symbol 1: 72 QPSK data symbols; received EVM 30.00 %' });
+    expect(figure.layout.title).toMatchObject({ text: 'Symbol 1: 72 QPSK data symbols; received EVM 30.00\u00a0%' });
     // 1.3 × 1.15 = 1.495 tenths-of-1/√2 steps → 1.5/√2.
     expectCloseArray((figure.layout.xaxis?.range ?? []).map(Number), [-1.5 * Math.SQRT1_2, 1.5 * Math.SQRT1_2], absTol, 'x range');
     // A receiver constellation shorter than the grid expects (e.g. another configuration) is not drawn.
