@@ -36,7 +36,7 @@ export function registerAnalyze(program: Command, io: CliIo): void {
     .command('analyze')
     .description('demodulate a recording of the configured waveform: EVM (RMS, peak, per symbol), limit and verdict, CFO, timing, BER')
     .option('--config <file>', 'waveform configuration (JSON) the recording was made with (default: the one in its metadata)')
-    .requiredOption('--iq <file>', 'recording: SigMF (BASE, BASE.sigmf-data or .sigmf-meta), .iq (with .iq.json), .wav or .csv')
+    .requiredOption('--iq <file>', 'recording: SigMF (BASE, BASE.sigmf-data or .sigmf-meta, or a .sigmf archive), .iq (with .iq.json), .wav or .csv')
     .option('--raw-format <format>', `file without metadata: sample format, ${Object.keys(BARE_RAW_FORMATS).join('|')}`)
     .option('--rate <Hz>', 'file without metadata (raw, CSV): sample rate')
     .option('--json', 'print one JSON object')
