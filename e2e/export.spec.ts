@@ -4,6 +4,7 @@ import { expect, test, type Download } from '@playwright/test';
 import { parseWaveformConfig } from '../src/config/configParse';
 import { defaultScenario } from '../src/scenarios/demoScenario';
 import { exportToMemory } from '../src/io/exportMemory';
+import { listUstarMembers } from '../src/io/ustar';
 import { waitForPlot, watchPage } from './pageHelpers';
 
 // Export from the browser: the dialog previews level, peak, clipping and checksum; the saved SigMF recording parses,
@@ -53,6 +54,56 @@ test('exports a SigMF recording whose metadata parses and whose sha512 matches',
   const expected = exportToMemory(parseWaveformConfig(defaultScenario.config), { format: 'sigmf-ci16', level: { mode: 'rms', levelDbfs: -18 } });
   expect(Buffer.compare(data, Buffer.from(expected.data))).toBe(0);
   expect(expected.sha512Hex).toBe(sha);
+  expect(watch.consoleErrors).toEqual([]);
+});
+
+// The SigMF archive: one .sigmf tar (SigMF specification v1.2, Archive: a folder NAME/ with NAME.sigmf-meta and
+// NAME.sigmf-data) whose data member has the bytes src/io builds in Node and whose metadata's sha512 matches them.
+test('exports a SigMF archive that holds the recording, with the same bytes as the command line', async ({ page, baseURL }) => {
+  const watch = watchPage(page, baseURL);
+  await page.goto('/');
+  await waitForPlot(page.getByTestId('time-samples-plot'));
+  await page.getByRole('button', { name: 'Export IQ…' }).click();
+  const dialog = page.getByRole('dialog', { name: 'Export IQ file' });
+  await dialog.getByLabel('Format').selectOption('sigmf-archive');
+  await expect(dialog.locator('[data-report="sha512"]')).toHaveText(/^[0-9a-f]{128}$/, { timeout: 20_000 });
+  const files: Download[] = [];
+  page.on('download', (download) => files.push(download));
+  await dialog.getByRole('button', { name: 'Save files' }).click();
+  await expect.poll(() => files.length).toBe(1);
+  await page.waitForTimeout(300);
+  expect(files).toHaveLength(1);
+  const base = 'saltway-uplink-dft-s-ofdm';
+  expect(files[0]!.suggestedFilename()).toBe(`${base}.sigmf`);
+  const bytes = new Uint8Array(await readFile((await files[0]!.path())!));
+  const members = listUstarMembers(bytes.length, (offset, length) => bytes.subarray(offset, offset + length), `${base}.sigmf`);
+  expect(members.map((m) => m.name)).toEqual([base, `${base}/${base}.sigmf-data`, `${base}/${base}.sigmf-meta`]);
+  const member = (name: string) => {
+    const m = members.find((x) => x.name === name)!;
+    return bytes.subarray(m.dataOffsetBytes, m.dataOffsetBytes + m.sizeBytes);
+  };
+  const data = member(`${base}/${base}.sigmf-data`);
+  const meta = JSON.parse(new TextDecoder().decode(member(`${base}/${base}.sigmf-meta`))) as { global: Record<string, unknown> };
+  const expected = exportToMemory(parseWaveformConfig(defaultScenario.config), { format: 'sigmf-archive' });
+  // Float samples match Node's to the last bits except where a sample is within rounding noise of zero: ECMAScript
+  // leaves Math.sin/cos/exp/pow implementation-approximated and the page's JS engine is not Node's, so the f64 values
+  // can differ by an ulp, which float32 shows only near zero (ECMA-262 §21.3.2; measured: sin, cos, exp, log, pow
+  // differ between Node 20 and Debian's chromium here, sqrt and hypot do not).
+  const shown = new Float32Array(data.slice().buffer);
+  const node = new Float32Array(expected.data.slice().buffer);
+  expect(shown.length).toBe(node.length);
+  let differing = 0;
+  let largestDifference = 0;
+  for (let i = 0; i < shown.length; i++) {
+    if (shown[i] === node[i]) continue;
+    differing += 1;
+    largestDifference = Math.max(largestDifference, Math.abs(shown[i]! - node[i]!));
+  }
+  console.log(`SigMF archive, browser vs Node: ${differing} of ${shown.length} float32 values differ, largest by ${largestDifference.toExponential(2)} (full scale 1)`);
+  expect(differing).toBeLessThan(shown.length / 1000);
+  expect(largestDifference).toBeLessThan(1e-14);
+  expect(meta.global['core:datatype']).toBe('cf32_le');
+  expect(meta.global['core:sha512']).toBe(createHash('sha512').update(data).digest('hex'));
   expect(watch.consoleErrors).toEqual([]);
 });
 

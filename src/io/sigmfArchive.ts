@@ -38,14 +38,20 @@ export function sigmfArchiveNames(name: string): SigmfArchiveNames {
   return { directory: `${name}/`, meta: `${name}/${name}.sigmf-meta`, data };
 }
 
-/** A whole archive in memory: directory, metadata, then data (the order the CLI streams it in, so the bytes match). */
-export function encodeSigmfArchive(name: string, metaText: string, data: Uint8Array): Uint8Array {
+/**
+ * A whole archive in memory: directory, data, then metadata (the order the CLI streams it in, so the bytes match at
+ * the same modification time `mtimeS`, seconds since 1970; default 0).
+ */
+export function encodeSigmfArchive(name: string, metaText: string, data: Uint8Array, mtimeS = 0): Uint8Array {
   const names = sigmfArchiveNames(name);
-  return encodeUstarArchive([
-    { name: names.directory, type: 'directory' },
-    { name: names.data, type: 'file', bytes: data },
-    { name: names.meta, type: 'file', bytes: encoder.encode(metaText) },
-  ]);
+  return encodeUstarArchive(
+    [
+      { name: names.directory, type: 'directory' },
+      { name: names.data, type: 'file', bytes: data },
+      { name: names.meta, type: 'file', bytes: encoder.encode(metaText) },
+    ],
+    mtimeS,
+  );
 }
 
 /**

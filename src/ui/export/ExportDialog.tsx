@@ -8,7 +8,7 @@ import { useEngineClient } from '../state/EngineContext';
 import {
   checkExportForm,
   defaultLevelLabel,
-  exportMimeTypes,
+  exportDownloads,
   FORMAT_LABELS,
   FORMAT_ORDER,
   initialExportForm,
@@ -149,9 +149,9 @@ export function ExportDialog({ open, onClose }: { open: boolean; onClose(): void
 
   const save = () => {
     if (files === null || !checked.ok) return;
-    const mime = exportMimeTypes(form.format);
-    downloadFile(files.data as BlobPart, `${checked.baseName}${files.dataSuffix}`, mime.data);
-    downloadFile(files.metaText, `${checked.baseName}${files.metaSuffix}`, mime.meta);
+    for (const file of exportDownloads(form.format, checked.baseName, files, Math.floor(Date.now() / 1000))) {
+      downloadFile(file.content as BlobPart, file.name, file.mimeType);
+    }
   };
 
   return (

@@ -3,6 +3,7 @@
  * (the same object the CLI builds from its flags). Pure; the schema's messages mark the fields.
  */
 import { EXPORT_FORMATS, exportFormatInfo, type ExportFormat } from '../../io/exportFormats';
+import { encodeSigmfArchive, sigmfArchiveNames } from '../../io/sigmfArchive';
 import { exportOptionsSchema } from '../../io/exportOptions';
 
 export type LevelMode = 'default' | 'formula' | 'linear' | 'rms' | 'peak' | 'auto';
@@ -55,8 +56,8 @@ export const FORMAT_LABELS: Record<ExportFormat, string> = {
   csv: 'CSV text, one I,Q pair per line',
 };
 
-/** Formats the dialog offers: all but the SigMF archive, which only `crestline generate` writes so far. */
-export const FORMAT_ORDER: readonly ExportFormat[] = EXPORT_FORMATS.filter((f) => exportFormatInfo(f).archiveSuffix === undefined);
+/** Formats the dialog offers: every format `crestline generate` writes. */
+export const FORMAT_ORDER: readonly ExportFormat[] = EXPORT_FORMATS;
 
 /** What "default" means for a format (src/io's rule: formula scale for SigMF cf32, auto otherwise). */
 export function defaultLevelLabel(format: ExportFormat): string {
@@ -133,6 +134,14 @@ export function checkExportForm(form: ExportFormState): CheckedExportForm {
   const errors: Record<string, string> = {};
   const baseName = form.baseName.trim();
   if (baseName === '' || /[\\/:*?"<>|]/.test(baseName)) errors.baseName = 'a file name without \\ / : * ? " < > |';
+  else if (exportFormatInfo(form.format).archiveSuffix !== undefined) {
+    // The archive's members are NAME/NAME.sigmf-data and must fit a tar name: src/io says what is allowed.
+    try {
+      sigmfArchiveNames(baseName);
+    } catch (error) {
+      errors.baseName = error instanceof Error ? error.message : String(error);
+    }
+  }
   const options = exportOptionsInput(form);
   const parsed = exportOptionsSchema.safeParse(options);
   if (!parsed.success) {
@@ -147,6 +156,27 @@ export function checkExportForm(form: ExportFormState): CheckedExportForm {
 }
 
 /** MIME type of each file the format writes. */
+/**
+ * The files the browser saves for an export: the data file and its metadata, or — for the SigMF archive — one
+ * `.sigmf` tar holding both (the layout `crestline generate --format sigmf-archive` writes).
+ */
+export function exportDownloads(
+  format: ExportFormat,
+  baseName: string,
+  files: { data: Uint8Array; metaText: string; dataSuffix: string; metaSuffix: string },
+  mtimeS: number,
+): { name: string; content: Uint8Array | string; mimeType: string }[] {
+  const info = exportFormatInfo(format);
+  if (info.archiveSuffix !== undefined) {
+    return [{ name: `${baseName}${info.archiveSuffix}`, content: encodeSigmfArchive(baseName, files.metaText, files.data, mtimeS), mimeType: 'application/x-tar' }];
+  }
+  const mime = exportMimeTypes(format);
+  return [
+    { name: `${baseName}${files.dataSuffix}`, content: files.data, mimeType: mime.data },
+    { name: `${baseName}${files.metaSuffix}`, content: files.metaText, mimeType: mime.meta },
+  ];
+}
+
 export function exportMimeTypes(format: ExportFormat): { data: string; meta: string } {
   const info = exportFormatInfo(format);
   const data = info.container === 'wav' ? 'audio/wav' : info.container === 'csv' ? 'text/csv' : 'application/octet-stream';

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { EXPORT_FORMATS } from '../../../src/io/exportFormats';
 import { parseExportOptions } from '../../../src/io/exportOptions';
-import { checkExportForm, exportOptionsInput, FORMAT_LABELS, initialExportForm } from '../../../src/ui/export/exportForm';
+import { listUstarMembers } from '../../../src/io/ustar';
+import { checkExportForm, exportDownloads, exportOptionsInput, FORMAT_LABELS, FORMAT_ORDER, initialExportForm } from '../../../src/ui/export/exportForm';
 
 describe('export form', () => {
   it('starts with the plain generate output (SigMF cf32, formula scale, nothing added)', () => {
@@ -37,5 +38,37 @@ describe('export form', () => {
 
   it('labels every format src/io writes', () => {
     expect(Object.keys(FORMAT_LABELS).sort()).toEqual([...EXPORT_FORMATS].sort());
+  });
+
+  it('offers every format the command line writes', () => {
+    expect([...FORMAT_ORDER].sort()).toEqual([...EXPORT_FORMATS].sort());
+  });
+
+  it('saves a data file and its metadata, or one SigMF archive holding both', () => {
+    const files = { data: new Uint8Array([1, 2, 3, 4, 5, 6, 7, 8]), metaText: '{"global":{}}', dataSuffix: '.sigmf-data', metaSuffix: '.sigmf-meta' };
+    const pair = exportDownloads('sigmf-cf32', 'bench', files, 0);
+    expect(pair.map((f) => f.name)).toEqual(['bench.sigmf-data', 'bench.sigmf-meta']);
+    const [archive] = exportDownloads('sigmf-archive', 'bench', files, 1_800_000_000);
+    expect(archive!.name).toBe('bench.sigmf');
+    expect(archive!.mimeType).toBe('application/x-tar');
+    // SigMF archive layout (SigMF spec, Archive format): a folder NAME/ holding NAME.sigmf-data and NAME.sigmf-meta.
+    const bytes = archive!.content as Uint8Array;
+    const members = listUstarMembers(bytes.length, (offset, length) => bytes.subarray(offset, offset + length), 'bench.sigmf');
+    expect(members.map((m) => [m.type, m.name])).toEqual([
+      ['directory', 'bench'],
+      ['file', 'bench/bench.sigmf-data'],
+      ['file', 'bench/bench.sigmf-meta'],
+    ]);
+    const data = members[1]!;
+    expect([...bytes.subarray(data.dataOffsetBytes, data.dataOffsetBytes + data.sizeBytes)]).toEqual([...files.data]);
+    expect(members[2]!.sizeBytes).toBe(files.metaText.length);
+  });
+
+  it('refuses an archive name too long for a tar member, at the file-name field', () => {
+    // ustar names hold at most 100 bytes (POSIX.1-1988 ustar header, common practice): 2·45 + 12 = 102 is too long.
+    const checked = checkExportForm({ ...initialExportForm('a'.repeat(45)), format: 'sigmf-archive' });
+    expect(checked.ok).toBe(false);
+    if (!checked.ok) expect(checked.errors.baseName).toMatch(/too long.*at most 44/);
+    expect(checkExportForm({ ...initialExportForm('a'.repeat(44)), format: 'sigmf-archive' }).ok).toBe(true);
   });
 });
