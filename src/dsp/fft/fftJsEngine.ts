@@ -1,4 +1,5 @@
 import FFT from 'fft.js';
+import { cos, sin } from '../math/trig';
 
 /**
  * Typed facade over fft.js (powers of two only, double precision).
@@ -8,6 +9,8 @@ import FFT from 'fft.js';
  * one pass less over the data and no rounding from a later multiply by N.
  */
 interface FftJsInternals {
+  /** Twiddles cos(πi/N), −sin(πi/N) at [i], [i + 1] for even i < 2N (fft.js 4.0.4, lib/fft.js constructor). */
+  table: number[];
   _out: Float64Array | null;
   _data: Float64Array | null;
   _inv: number;
@@ -29,6 +32,14 @@ export function getPowerOfTwoEngine(size: number): PowerOfTwoEngine {
   const hit = cache.get(size);
   if (hit) return hit;
   const fft = new FFT(size) as unknown as FFT & FftJsInternals;
+  // fft.js fills its table with Math.cos/Math.sin, whose last bits differ between JavaScript engines (ECMA-262
+  // §21.3.2); rewrite it with the deterministic ones, same layout and same angle expression.
+  const table = fft.table;
+  for (let i = 0; i < table.length; i += 2) {
+    const angle = (Math.PI * i) / size;
+    table[i] = cos(angle);
+    table[i + 1] = -sin(angle);
+  }
   const engine: PowerOfTwoEngine = {
     size,
     forward(data, out) {

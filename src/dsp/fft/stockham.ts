@@ -10,6 +10,7 @@
  * machine precision (~1e-15·log N relative).
  * Buffers are interleaved (re, im), 2N values; `data` is read only by the first stage and never written.
  */
+import { cos, sin } from '../math/trig';
 export interface StockhamFft {
   readonly size: number;
   forward(data: Float64Array, out: Float64Array): void;
@@ -59,8 +60,8 @@ export function createStockhamFft(size: number): StockhamFft {
     for (let j = 0; j < m; j++) {
       for (let u = 1; u < radix; u++) {
         const angle = (-2 * Math.PI * ((j * u) % n)) / n;
-        twiddles[2 * (j * (radix - 1) + u - 1)] = Math.cos(angle);
-        twiddles[2 * (j * (radix - 1) + u - 1) + 1] = Math.sin(angle);
+        twiddles[2 * (j * (radix - 1) + u - 1)] = cos(angle);
+        twiddles[2 * (j * (radix - 1) + u - 1) + 1] = sin(angle);
       }
     }
     stages.push({ radix, n, stride: size / n, twiddles });
@@ -184,10 +185,10 @@ function stage3(x: Float64Array, y: Float64Array, m: number, s: number, tw: Floa
   }
 }
 
-const C51 = Math.cos((2 * Math.PI) / 5);
-const C52 = Math.cos((4 * Math.PI) / 5);
-const S51 = Math.sin((2 * Math.PI) / 5);
-const S52 = Math.sin((4 * Math.PI) / 5);
+const C51 = cos((2 * Math.PI) / 5);
+const C52 = cos((4 * Math.PI) / 5);
+const S51 = sin((2 * Math.PI) / 5);
+const S52 = sin((4 * Math.PI) / 5);
 
 function stage5(x: Float64Array, y: Float64Array, m: number, s: number, tw: Float64Array): void {
   const sm2 = 2 * s * m;
@@ -237,8 +238,8 @@ function smallDftTable(p: number): Float64Array {
   for (let t = 0; t < p; t++) {
     for (let u = 0; u < p; u++) {
       const angle = (-2 * Math.PI * ((t * u) % p)) / p;
-      table[2 * (t * p + u)] = Math.cos(angle);
-      table[2 * (t * p + u) + 1] = Math.sin(angle);
+      table[2 * (t * p + u)] = cos(angle);
+      table[2 * (t * p + u) + 1] = sin(angle);
     }
   }
   return table;

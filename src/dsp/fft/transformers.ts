@@ -1,5 +1,6 @@
 import { getPowerOfTwoEngine, isPowerOfTwo } from './fftJsEngine';
 import { createStockhamFft, stockhamRadices } from './stockham';
+import { cos, sin } from '../math/trig';
 
 /**
  * Forward DFT kernels of any size, X[k] = Σ_n x[n] e^{-j2πkn/N}, all O(N log N):
@@ -65,8 +66,8 @@ function bluesteinTransformer(n: number): Transformer {
   for (let i = 0; i < n; i++) {
     // i² mod 2N keeps the angle small, so the chirp stays exact for large N.
     const angle = (Math.PI * ((i * i) % (2 * n))) / n;
-    chirpRe[i] = Math.cos(angle);
-    chirpIm[i] = Math.sin(angle);
+    chirpRe[i] = cos(angle);
+    chirpIm[i] = sin(angle);
   }
   const kernel = new Float64Array(2 * l);
   kernel[0] = chirpRe[0]!;
