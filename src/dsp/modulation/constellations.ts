@@ -1,4 +1,5 @@
 import { DspError } from '../errors';
+import { twoPow } from '../math/float64Bits';
 
 /**
  * Modulation schemes of TS 38.211 §5.1 (the same points as the tables of TS 36.211 §7.1).
@@ -36,14 +37,14 @@ export function qamAxisLevel(axisBits: readonly number[]): number {
   const h = axisBits.length;
   let inner = 1 - 2 * axisBits[h - 1]!;
   for (let i = h - 2; i >= 0; i--) {
-    inner = (1 - 2 * axisBits[i]!) * (2 ** (h - 1 - i) - inner);
+    inner = (1 - 2 * axisBits[i]!) * (twoPow(h - 1 - i) - inner);
   }
   return inner;
 }
 
 /** 1/√(2(M−1)/3): unit mean power for square M-QAM (1/√2, 1/√10, 1/√42, 1/√170, 1/√682). */
 export function qamNormalisation(bitsPerSym: number): number {
-  const m = 2 ** bitsPerSym;
+  const m = twoPow(bitsPerSym);
   return 1 / Math.sqrt((2 * (m - 1)) / 3);
 }
 
@@ -68,7 +69,7 @@ export function getConstellation(modulation: Modulation): ConstellationTable {
   const hit = tables.get(modulation);
   if (hit) return hit;
   const m = bitsPerSymbol(modulation);
-  const points = new Float64Array(2 * 2 ** m);
+  const points = new Float64Array(2 * twoPow(m));
   let axisLevels = new Float64Array(0);
   let axisBits = new Uint8Array(0);
   if (m === 1) {
@@ -77,13 +78,13 @@ export function getConstellation(modulation: Modulation): ConstellationTable {
   } else {
     const h = m / 2;
     const norm = qamNormalisation(m);
-    for (let pattern = 0; pattern < 2 ** m; pattern++) {
+    for (let pattern = 0; pattern < twoPow(m); pattern++) {
       const bits = Array.from({ length: m }, (_, i) => (pattern >>> (m - 1 - i)) & 1);
       points[2 * pattern] = norm * qamAxisLevel(bits.filter((_, i) => i % 2 === 0));
       points[2 * pattern + 1] = norm * qamAxisLevel(bits.filter((_, i) => i % 2 === 1));
     }
     const levels: { level: number; bits: number[] }[] = [];
-    for (let pattern = 0; pattern < 2 ** h; pattern++) {
+    for (let pattern = 0; pattern < twoPow(h); pattern++) {
       const bits = Array.from({ length: h }, (_, i) => (pattern >>> (h - 1 - i)) & 1);
       levels.push({ level: norm * qamAxisLevel(bits), bits });
     }

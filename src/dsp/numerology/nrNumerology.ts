@@ -3,6 +3,7 @@
  * Tc = 1/(Δf_max·N_f), Δf_max = 480 kHz, N_f = 4096; κ = Ts/Tc = 64.
  * N_u = 2048κ·2^−μ; normal CP 144κ·2^−μ, plus 16κ on l = 0 and l = 7·2^μ of each subframe; extended CP 512κ·2^−μ (μ = 2 only).
  */
+import { twoPow } from '../math/float64Bits';
 /** 1/Tc = Δf_max·N_f, Tc per second (TS 38.211 §4.1). */
 export const NR_TC_PER_SECOND = 480000 * 4096;
 /** κ = Ts/Tc (TS 38.211 §4.1). */
@@ -37,14 +38,14 @@ export function nrFftSize(numRb: number, subcarrierSpacingHz: number, bandwidthH
  * Samples = Tc count × f_s·Tc with f_s = fftSize·Δf.
  */
 export function nrCpPatternSamples(mu: number, cyclicPrefix: 'normal' | 'extended', fftSize: number): number[] {
-  const scs = 15000 * 2 ** mu;
+  const scs = 15000 * twoPow(mu);
   const samplesPerTc = (fftSize * scs) / NR_TC_PER_SECOND;
-  const period = (cyclicPrefix === 'extended' ? 6 : 7) * 2 ** mu;
+  const period = (cyclicPrefix === 'extended' ? 6 : 7) * twoPow(mu);
   return Array.from({ length: period }, (_, l) => {
     const tc =
       cyclicPrefix === 'extended'
-        ? 512 * NR_KAPPA * 2 ** -mu
-        : 144 * NR_KAPPA * 2 ** -mu + (l === 0 ? 16 * NR_KAPPA : 0);
+        ? 512 * NR_KAPPA * twoPow(-mu)
+        : 144 * NR_KAPPA * twoPow(-mu) + (l === 0 ? 16 * NR_KAPPA : 0);
     return tc * samplesPerTc;
   });
 }

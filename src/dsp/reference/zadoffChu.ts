@@ -1,5 +1,6 @@
 import { DspError } from '../errors';
 import { LTE_PHI_12, LTE_PHI_24, NR_PHI_12, NR_PHI_18, NR_PHI_24, NR_PHI_6 } from './lowPaprTables';
+import { cos, sin } from '../math/trig';
 
 /**
  * Zadoff–Chu based low-PAPR base sequences r̄_{u,v}(n) and their cyclic shifts r^{(α)}_{u,v}(n) = e^{jαn} r̄_{u,v}(n):
@@ -38,8 +39,8 @@ export function fillZadoffChuRoot(q: number, nZc: number, outIq: Float64Array): 
   for (let m = 0; m < nZc; m++) {
     const k = (((q * ((m * (m + 1)) % period)) % period) + period) % period;
     const angle = (-Math.PI * k) / nZc;
-    outIq[2 * m] = Math.cos(angle);
-    outIq[2 * m + 1] = Math.sin(angle);
+    outIq[2 * m] = cos(angle);
+    outIq[2 * m + 1] = sin(angle);
   }
   return outIq;
 }
@@ -88,8 +89,8 @@ export function fillBaseSequence(family: BaseSequenceFamily, u: number, v: numbe
     const row = table[u]!;
     for (let n = 0; n < length; n++) {
       const angle = (row[n]! * Math.PI) / 4;
-      outIq[2 * n] = Math.cos(angle);
-      outIq[2 * n + 1] = Math.sin(angle);
+      outIq[2 * n] = cos(angle);
+      outIq[2 * n + 1] = sin(angle);
     }
     return outIq;
   }
@@ -97,8 +98,8 @@ export function fillBaseSequence(family: BaseSequenceFamily, u: number, v: numbe
     for (let n = 0; n < length; n++) {
       const k = ((u + 1) * (n + 1) * (n + 2)) % 62;
       const angle = (-Math.PI * k) / 31;
-      outIq[2 * n] = Math.cos(angle);
-      outIq[2 * n + 1] = Math.sin(angle);
+      outIq[2 * n] = cos(angle);
+      outIq[2 * n + 1] = sin(angle);
     }
     return outIq;
   }
@@ -129,8 +130,8 @@ export function fillShiftedBaseSequence(
   fillBaseSequence(family, u, v, length, outIq);
   if (alphaRad === 0) return outIq;
   for (let n = 0; n < length; n++) {
-    const c = Math.cos(alphaRad * n);
-    const s = Math.sin(alphaRad * n);
+    const c = cos(alphaRad * n);
+    const s = sin(alphaRad * n);
     const re = outIq[2 * n]!;
     const im = outIq[2 * n + 1]!;
     outIq[2 * n] = re * c - im * s;

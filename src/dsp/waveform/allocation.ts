@@ -4,6 +4,7 @@ import type { Modulation } from '../modulation/constellations';
 import type { Numerology } from '../numerology/numerology';
 import type { SpectrumShapingPlan } from '../shaping/spectrumShaping';
 import { checkDftSpreadSize } from './transformPrecoding';
+import { pow } from '../math/expLog';
 
 /** One allocated block after defaults: its data subcarriers, modulation and amplitude. */
 export interface AllocationPlan {
@@ -80,7 +81,7 @@ export function resolveAllocations(config: WaveformConfig, numerology: Numerolog
       numRb: b.numRb,
       modulation,
       powerOffsetDb,
-      amplitudeLinear: 10 ** (powerOffsetDb / 20),
+      amplitudeLinear: pow(10, powerOffsetDb / 20),
       dataSubcarriers,
     });
   }

@@ -2,6 +2,7 @@ import { assertLength } from '../errors';
 import { createFftPlan, ifftRaw, type FftPlan } from '../fft/fftPlan';
 import type { Numerology } from '../numerology/numerology';
 import { gridToIfftBins } from './subcarrierLayout';
+import { cos, sin } from '../math/trig';
 
 /**
  * OFDM symbol synthesis exactly as the standards' baseband formulas, evaluated at t = n·Ts/os over the whole
@@ -43,8 +44,8 @@ export function createOfdmPlan(numerology: Numerology, oversampling: number, car
         const ramp = new Float64Array(2 * (cp + ifftSize));
         for (let n = 0; n < cp + ifftSize; n++) {
           const angle = (Math.PI * (n - cp)) / ifftSize;
-          ramp[2 * n] = Math.cos(angle);
-          ramp[2 * n + 1] = Math.sin(angle);
+          ramp[2 * n] = cos(angle);
+          ramp[2 * n + 1] = sin(angle);
         }
         return ramp;
       })
@@ -124,7 +125,7 @@ export function ofdmModulateSymbol(
   if (ramp) rotateBy(outIq, ramp);
   if (plan.symbolPhaseRad.length > 0) {
     const phase = plan.symbolPhaseRad[symbolIndex % plan.symbolPhaseRad.length]!;
-    rotateByConstant(outIq, Math.cos(phase), Math.sin(phase));
+    rotateByConstant(outIq, cos(phase), sin(phase));
   }
   return outIq;
 }
