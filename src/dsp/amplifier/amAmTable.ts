@@ -1,6 +1,7 @@
 import { DspError } from '../errors';
 import { applyMemoryless, dbToAmplitude, type AmplifierModel } from './amplifierModel';
 import { createPchip, evaluatePchip } from './pchip';
+import { log10 } from '../math/expLog';
 
 /** One measured point: input power, gain and phase (AM/AM and AM/PM). */
 export interface AmAmTableRow {
@@ -80,11 +81,11 @@ export function createTableModel(table: AmAmTable, sourceName = 'AM/AM table'): 
   }
   const amAm = (r: number): number => {
     if (r <= 0) return 0;
-    const pin = 20 * Math.log10(r);
+    const pin = 20 * log10(r);
     if (pin <= first.inputDb) return r * gainSmall;
     return dbToAmplitude(evaluatePchip(amAmCurve, pin));
   };
-  const amPmRad = (r: number): number => (r <= 0 ? 0 : evaluatePchip(amPmCurve, 20 * Math.log10(r)) * (Math.PI / 180));
+  const amPmRad = (r: number): number => (r <= 0 ? 0 : evaluatePchip(amPmCurve, 20 * log10(r)) * (Math.PI / 180));
   const model: AmplifierModel = {
     kind: 'table',
     description: `measured table (${rows.length} rows, ${first.inputDb}…${last.inputDb} ${table.inputUnit}, P_out,sat ${outputDb[satIndex]!.toFixed(2)} ${table.inputUnit === 'dBm' ? 'dBm' : 'dB'})`,

@@ -1,4 +1,6 @@
 import { assertSeparateOutput, DspError } from '../errors';
+import { log10, pow } from '../math/expLog';
+import { cos, sin } from '../math/trig';
 
 /**
  * The contract every power-amplifier model meets. Amplitudes are in the model's own units (the signal's
@@ -63,8 +65,8 @@ export function applyMemoryless(
       continue;
     }
     const phi = model.amPmRad(r);
-    const c = Math.cos(phi);
-    const s = Math.sin(phi);
+    const c = cos(phi);
+    const s = sin(phi);
     outIq[i] = ratio * (re * c - im * s);
     outIq[i + 1] = ratio * (re * s + im * c);
   }
@@ -80,10 +82,10 @@ export function requirePositive(value: number, field: string, unit = ''): void {
 
 /** 20·log10(x); −Infinity for 0. */
 export function amplitudeToDb(amplitude: number): number {
-  return 20 * Math.log10(amplitude);
+  return 20 * log10(amplitude);
 }
 
 /** 10^(dB/20). */
 export function dbToAmplitude(db: number): number {
-  return 10 ** (db / 20);
+  return pow(10, db / 20);
 }

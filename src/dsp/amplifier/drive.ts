@@ -1,5 +1,6 @@
 import { DspError } from '../errors';
 import type { AmplifierModel } from './amplifierModel';
+import { log10, pow } from '../math/expLog';
 
 /** How hard the amplifier is driven: input or output back-off from saturation, dB. */
 export interface DriveSpec {
@@ -43,17 +44,17 @@ export function solveDrive(model: AmplifierModel, signalIq: Float64Array, drive:
   if (!(meanInput > 0)) throw new DspError('INVALID_CONFIG', 'amplifier drive: the signal has zero power, so back-off is undefined.');
   const meanOutputAt = createOutputPowerMeter(model, signalIq);
   const rSat = model.inputSaturationAmplitude;
-  const aSat2 = model.outputSaturationAmplitude ** 2;
-  const scaleOf = (iboDb: number): number => rSat / Math.sqrt(meanInput * 10 ** (iboDb / 10));
+  const aSat2 = model.outputSaturationAmplitude * model.outputSaturationAmplitude;
+  const scaleOf = (iboDb: number): number => rSat / Math.sqrt(meanInput * pow(10, iboDb / 10));
   const point = (iboDb: number): DrivePoint => {
     const s = scaleOf(iboDb);
     const out = meanOutputAt(s);
-    return { inputScale: s, iboDb, oboDb: 10 * Math.log10(aSat2 / out), meanInputPower: meanInput * s * s, meanOutputPower: out };
+    return { inputScale: s, iboDb, oboDb: 10 * log10(aSat2 / out), meanInputPower: meanInput * s * s, meanOutputPower: out };
   };
   if (drive.reference === 'ibo') return point(drive.backoffDb);
 
   const target = drive.backoffDb;
-  const linearOffsetDb = 20 * Math.log10(model.outputSaturationAmplitude / (model.smallSignalGainLinear * rSat));
+  const linearOffsetDb = 20 * log10(model.outputSaturationAmplitude / (model.smallSignalGainLinear * rSat));
   let a = point(target - linearOffsetDb);
   const step = 2;
   const maxSteps = 60;

@@ -1,5 +1,6 @@
 import { assertSeparateOutput, DspError } from '../errors';
 import { applyMemoryless, requirePositive, type AmplifierModel } from './amplifierModel';
+import { atan2 } from '../math/atan';
 
 /** A complex coefficient as [re, im]. */
 export type ComplexPair = readonly [number, number];
@@ -63,7 +64,7 @@ export function createPolynomialModel(params: PolynomialParams): AmplifierModel 
       field: 'amplifier.coefficients',
     });
   }
-  const phase0 = Math.atan2(bIm[0]!, bRe[0]!);
+  const phase0 = atan2(bIm[0]!, bRe[0]!);
   const staticAt = (r: number): [number, number] => {
     let sRe = 0;
     let sIm = 0;
@@ -79,7 +80,7 @@ export function createPolynomialModel(params: PolynomialParams): AmplifierModel 
   const amPmRad = (r: number): number => {
     if (r === 0) return 0;
     const [sRe, sIm] = staticAt(r);
-    return wrapPi(Math.atan2(sIm, sRe) - phase0);
+    return wrapPi(atan2(sIm, sRe) - phase0);
   };
   const rSat = params.inputSaturationAmplitude ?? findFirstPeak(amAm, params.maxInputAmplitude);
   if (rSat === undefined) {

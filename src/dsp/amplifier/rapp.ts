@@ -1,4 +1,5 @@
 import { applyMemoryless, dbToAmplitude, requirePositive, type AmplifierModel } from './amplifierModel';
+import { pow } from '../math/expLog';
 
 /** Optional AM/PM of the "modified Rapp" form Φ(r) = α·r^q / (1 + (r/β)^q) degrees, r the input amplitude. */
 export interface RappAmPm {
@@ -47,12 +48,12 @@ export function createRappModel(params: RappParams): AmplifierModel {
   const amAm = (r: number): number => {
     const u = (gain * r) / aSat;
     // For large u, u^{2p} overflows: A → A_sat·u/(u^{2p})^{1/2p} = A_sat.
-    const power = u ** twoP;
+    const power = pow(u, twoP);
     if (!Number.isFinite(power)) return aSat;
-    return (gain * r) / (1 + power) ** (1 / twoP);
+    return (gain * r) / pow(1 + power, 1 / twoP);
   };
   const amPmRad = amPm
-    ? (r: number): number => ((amPm.alphaDeg * r ** amPm.exponent) / (1 + (r / amPm.betaAmplitude) ** amPm.exponent)) * (Math.PI / 180)
+    ? (r: number): number => ((amPm.alphaDeg * pow(r, amPm.exponent)) / (1 + pow(r / amPm.betaAmplitude, amPm.exponent))) * (Math.PI / 180)
     : (): number => 0;
   const model: AmplifierModel = {
     kind: 'rapp',

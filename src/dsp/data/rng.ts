@@ -4,6 +4,8 @@
  * (Math.imul and unsigned shifts), seeded through splitmix32 so that nearby seeds give unrelated streams.
  * Randomness is always a parameter (`rng: Rng`), never a global.
  */
+import { log } from '../math/expLog';
+import { cos, sin } from '../math/trig';
 export interface Rng {
   /** Next 32-bit unsigned integer. */
   nextUint32(): number;
@@ -72,10 +74,10 @@ export function createRngFromState(state0: number, state1: number, state2: numbe
       // 1 − u keeps the logarithm's argument in (0, 1].
       const u = 1 - nextFloat();
       const v = nextFloat();
-      const radius = Math.sqrt(-2 * Math.log(u));
-      spare = radius * Math.sin(2 * Math.PI * v);
+      const radius = Math.sqrt(-2 * log(u));
+      spare = radius * sin(2 * Math.PI * v);
       hasSpare = true;
-      return radius * Math.cos(2 * Math.PI * v);
+      return radius * cos(2 * Math.PI * v);
     },
   };
 }

@@ -71,7 +71,7 @@ export function applyImpairments(
     for (let i = 0; i < n; i++) mean += phase[i]!;
     mean /= n;
     let variance = 0;
-    for (let i = 0; i < n; i++) variance += (phase[i]! - mean) ** 2;
+    for (let i = 0; i < n; i++) variance += (phase[i]! - mean) * (phase[i]! - mean);
     report.phaseNoiseRmsDeg = (Math.sqrt(variance / n) * 180) / Math.PI;
     applied.push('phase noise');
   }

@@ -1,4 +1,5 @@
 import { assertLength, DspError } from '../errors';
+import { pow } from '../math/expLog';
 
 /**
  * DAC quantisation of each rail (I and Q) with a uniform mid-rise quantiser of 2^bits levels spanning
@@ -19,7 +20,7 @@ export function quantizeDac(inIq: Float64Array, bits: number, fullScaleAmplitude
     });
   }
   assertLength(outIq, inIq.length, 'DAC output');
-  const step = (2 * fullScaleAmplitude) / 2 ** bits;
+  const step = (2 * fullScaleAmplitude) / pow(2, bits);
   const top = fullScaleAmplitude - step / 2;
   let clipped = 0;
   for (let i = 0; i < inIq.length; i++) {
@@ -41,5 +42,5 @@ export function fullScaleFromHeadroom(signalIq: Float64Array, headroomDb: number
   let power = 0;
   for (let i = 0; i < signalIq.length; i++) power += signalIq[i]! * signalIq[i]!;
   const railRms = Math.sqrt(power / signalIq.length);
-  return railRms * 10 ** (headroomDb / 20);
+  return railRms * pow(10, headroomDb / 20);
 }

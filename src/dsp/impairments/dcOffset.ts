@@ -1,4 +1,6 @@
 import { assertLength } from '../errors';
+import { cos, sin } from '../math/trig';
+import { pow } from '../math/expLog';
 
 /**
  * LO leakage (carrier feed-through) as a constant added to the baseband signal: y = x + d, with
@@ -13,10 +15,10 @@ export function applyDcOffset(inIq: Float64Array, levelDbc: number, phaseDeg: nu
   let power = 0;
   for (let i = 0; i < inIq.length; i++) power += inIq[i]! * inIq[i]!;
   power /= inIq.length / 2;
-  const magnitude = Math.sqrt(power * 10 ** (levelDbc / 10));
+  const magnitude = Math.sqrt(power * pow(10, levelDbc / 10));
   const phi = (phaseDeg * Math.PI) / 180;
-  const dRe = magnitude * Math.cos(phi);
-  const dIm = magnitude * Math.sin(phi);
+  const dRe = magnitude * cos(phi);
+  const dIm = magnitude * sin(phi);
   for (let i = 0; i < inIq.length; i += 2) {
     outIq[i] = inIq[i]! + dRe;
     outIq[i + 1] = inIq[i + 1]! + dIm;

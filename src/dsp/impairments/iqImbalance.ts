@@ -1,4 +1,6 @@
 import { assertLength } from '../errors';
+import { log10, pow } from '../math/expLog';
+import { cos, sin } from '../math/trig';
 
 /**
  * IQ-modulator gain and phase imbalance. The I branch is the reference; the Q branch has gain g = 10^{gainDb/20}
@@ -12,10 +14,10 @@ import { assertLength } from '../errors';
  */
 export function applyIqImbalance(inIq: Float64Array, gainDb: number, phaseDeg: number, outIq: Float64Array): Float64Array {
   assertLength(outIq, inIq.length, 'IQ-imbalance output');
-  const g = 10 ** (gainDb / 20);
+  const g = pow(10, gainDb / 20);
   const phi = (phaseDeg * Math.PI) / 180;
-  const gc = g * Math.cos(phi);
-  const gs = g * Math.sin(phi);
+  const gc = g * cos(phi);
+  const gs = g * sin(phi);
   for (let i = 0; i < inIq.length; i += 2) {
     const xi = inIq[i]!;
     const xq = inIq[i + 1]!;
@@ -27,11 +29,11 @@ export function applyIqImbalance(inIq: Float64Array, gainDb: number, phaseDeg: n
 
 /** μ and ν of y = μx + νx* for the imbalance above, each as [re, im]. */
 export function iqImbalanceCoefficients(gainDb: number, phaseDeg: number): { mu: [number, number]; nu: [number, number] } {
-  const g = 10 ** (gainDb / 20);
+  const g = pow(10, gainDb / 20);
   const phi = (phaseDeg * Math.PI) / 180;
   return {
-    mu: [(1 + g * Math.cos(phi)) / 2, (-g * Math.sin(phi)) / 2],
-    nu: [(1 - g * Math.cos(phi)) / 2, (-g * Math.sin(phi)) / 2],
+    mu: [(1 + g * cos(phi)) / 2, (-g * sin(phi)) / 2],
+    nu: [(1 - g * cos(phi)) / 2, (-g * sin(phi)) / 2],
   };
 }
 
@@ -40,7 +42,7 @@ export function iqImbalanceCoefficients(gainDb: number, phaseDeg: number): { mu:
  * (Razavi, RF Microelectronics, 2nd ed., §4.2; derived from μ, ν above). Infinity for a perfect modulator.
  */
 export function imageRejectionRatioDb(gainDb: number, phaseDeg: number): number {
-  const g = 10 ** (gainDb / 20);
-  const c = Math.cos((phaseDeg * Math.PI) / 180);
-  return 10 * Math.log10((1 + 2 * g * c + g * g) / (1 - 2 * g * c + g * g));
+  const g = pow(10, gainDb / 20);
+  const c = cos((phaseDeg * Math.PI) / 180);
+  return 10 * log10((1 + 2 * g * c + g * g) / (1 - 2 * g * c + g * g));
 }

@@ -1,6 +1,8 @@
 import type { Rng } from '../data/rng';
 import { assertLength, DspError } from '../errors';
 import { createFftPlan, ifftRaw } from '../fft/fftPlan';
+import { log10, pow } from '../math/expLog';
+import { cos, sin } from '../math/trig';
 
 /** One point of a single-sideband phase-noise mask L(f). */
 export interface PhaseNoiseMaskPoint {
@@ -43,7 +45,7 @@ export function maskLevelDbcPerHz(mask: readonly PhaseNoiseMaskPoint[], offsetHz
   while (mask[k + 1]!.offsetHz < offsetHz) k++;
   const a = mask[k]!;
   const b = mask[k + 1]!;
-  const t = Math.log10(offsetHz / a.offsetHz) / Math.log10(b.offsetHz / a.offsetHz);
+  const t = log10(offsetHz / a.offsetHz) / log10(b.offsetHz / a.offsetHz);
   return a.levelDbcPerHz + t * (b.levelDbcPerHz - a.levelDbcPerHz);
 }
 
@@ -80,7 +82,7 @@ export function generateMaskPhaseNoise(
   const spectrumIq = new Float64Array(2 * n);
   for (let k = 1; k < n; k++) {
     const fHz = (k <= n / 2 ? k : n - k) * (sampleRateHz / n);
-    const amplitude = Math.sqrt((10 ** (maskLevelDbcPerHz(mask, fHz) / 10) * sampleRateHz) / n / 2);
+    const amplitude = Math.sqrt((pow(10, maskLevelDbcPerHz(mask, fHz) / 10) * sampleRateHz) / n / 2);
     spectrumIq[2 * k] = amplitude * rng.nextGaussian();
     spectrumIq[2 * k + 1] = amplitude * rng.nextGaussian();
   }
@@ -98,10 +100,10 @@ export function integratePhaseNoiseRad2(mask: readonly PhaseNoiseMaskPoint[], fr
   const steps = 2000;
   let sum = 0;
   let prevF = fromHz;
-  let prevL = 10 ** (maskLevelDbcPerHz(mask, fromHz) / 10);
+  let prevL = pow(10, maskLevelDbcPerHz(mask, fromHz) / 10);
   for (let i = 1; i <= steps; i++) {
-    const f = fromHz * (toHz / fromHz) ** (i / steps);
-    const l = 10 ** (maskLevelDbcPerHz(mask, f) / 10);
+    const f = fromHz * pow(toHz / fromHz, i / steps);
+    const l = pow(10, maskLevelDbcPerHz(mask, f) / 10);
     sum += 0.5 * (l + prevL) * (f - prevF);
     prevF = f;
     prevL = l;
@@ -117,8 +119,8 @@ export function applyPhaseNoise(inIq: Float64Array, phaseRad: Float64Array, outI
   assertLength(phaseRad, inIq.length / 2, 'Phase-noise samples');
   assertLength(outIq, inIq.length, 'Phase-noise output');
   for (let n = 0; n < phaseRad.length; n++) {
-    const c = Math.cos(phaseRad[n]!);
-    const s = Math.sin(phaseRad[n]!);
+    const c = cos(phaseRad[n]!);
+    const s = sin(phaseRad[n]!);
     const re = inIq[2 * n]!;
     const im = inIq[2 * n + 1]!;
     outIq[2 * n] = re * c - im * s;

@@ -1,4 +1,5 @@
 import { assertSeparateOutput, DspError } from '../errors';
+import { cos, sin } from '../math/trig';
 
 /** Half-length of the interpolation kernel, taps on each side. */
 export const CLOCK_OFFSET_HALF_TAPS = 32;
@@ -33,11 +34,11 @@ export function applySampleClockOffset(inIq: Float64Array, ppm: number, outIq: F
       continue;
     }
     // sin(π(μ − k)) = (−1)^k·sin(πμ): one sine per output sample.
-    const sinPiMu = Math.sin(Math.PI * mu);
+    const sinPiMu = sin(Math.PI * mu);
     for (let k = -half + 1; k <= half; k++) {
       const t = mu - k;
       const sinc = ((k & 1 ? -1 : 1) * sinPiMu) / (Math.PI * t);
-      const w = 0.42 + 0.5 * Math.cos((Math.PI * t) / half) + 0.08 * Math.cos((2 * Math.PI * t) / half);
+      const w = 0.42 + 0.5 * cos((Math.PI * t) / half) + 0.08 * cos((2 * Math.PI * t) / half);
       const j = 2 * ((((base + k) % n) + n) % n);
       yRe += inIq[j]! * sinc * w;
       yIm += inIq[j + 1]! * sinc * w;

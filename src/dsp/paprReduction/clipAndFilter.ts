@@ -4,6 +4,8 @@ import { gridSubcarrierFrequencyHz } from '../waveform/subcarrierLayout';
 import { occupiedSubcarriers } from '../waveform/allocation';
 import type { SymbolLayout, WaveformPlan } from '../waveform/waveformPlan';
 import { outOfBandPowerRatioDb, recordPaprDb } from './outOfBandPower';
+import { log10, pow } from '../math/expLog';
+import { cos, sin } from '../math/trig';
 
 export interface ClipAndFilterOptions {
   /** Clipping level over the record's RMS amplitude, dB (CR = 20·log10(A/σ)). */
@@ -56,9 +58,9 @@ export function clipAndFilter(
   const n = plan.ofdm.ifftSize;
   const total = waveformIq.length / 2;
   let meanPower = 0;
-  for (let i = 0; i < waveformIq.length; i++) meanPower += waveformIq[i]! ** 2;
+  for (let i = 0; i < waveformIq.length; i++) meanPower += waveformIq[i]! * waveformIq[i]!;
   meanPower /= total;
-  const clipAmplitude = Math.sqrt(meanPower) * 10 ** (options.clippingRatioDb / 20);
+  const clipAmplitude = Math.sqrt(meanPower) * pow(10, options.clippingRatioDb / 20);
   const keep = new Uint8Array(n);
   const subcarrierSets = options.filter === 'grid' ? [Int32Array.from({ length: plan.numerology.numGridSubcarriers }, (_, g) => g)] : plan.allocations.map(occupiedSubcarriers);
   for (const set of subcarrierSets) for (const g of set) keep[plan.ofdm.bins[g]!] = 1;
@@ -123,7 +125,7 @@ export function clipAndFilter(
   const paprBeforeDb = recordPaprDb(waveformIq);
   const paprAfterDb = recordPaprDb(outputIq);
   let after = 0;
-  for (let i = 0; i < outputIq.length; i++) after += outputIq[i]! ** 2;
+  for (let i = 0; i < outputIq.length; i++) after += outputIq[i]! * outputIq[i]!;
   return {
     outputIq,
     report: {
@@ -134,7 +136,7 @@ export function clipAndFilter(
       outOfBandBeforeDb: outOfBandPowerRatioDb(waveformIq, rate, lowHz, highHz),
       outOfBandClipOnlyDb: outOfBandPowerRatioDb(clipOnlyIq, rate, lowHz, highHz),
       outOfBandAfterDb: outOfBandPowerRatioDb(outputIq, rate, lowHz, highHz),
-      powerChangeDb: 10 * Math.log10(after / total / meanPower),
+      powerChangeDb: 10 * log10(after / total / meanPower),
     },
   };
 }
@@ -154,8 +156,8 @@ function symbolRotation(plan: WaveformPlan, layout: SymbolLayout): (p: number) =
   const ramp = plan.ofdm.rampsIq[layout.symbolIndex % plan.ofdm.cpLengthsSamples.length];
   const phases = plan.ofdm.symbolPhaseRad;
   const theta = phases.length > 0 ? phases[layout.symbolIndex % phases.length]! : 0;
-  const c0 = Math.cos(theta);
-  const s0 = Math.sin(theta);
+  const c0 = cos(theta);
+  const s0 = sin(theta);
   if (!ramp) return () => [c0, s0];
   return (p) => {
     const c = ramp[2 * p]!;

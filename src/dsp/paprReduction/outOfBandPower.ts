@@ -1,5 +1,6 @@
 import { DspError } from '../errors';
 import { createFftPlan, fftForward } from '../fft/fftPlan';
+import { log10 } from '../math/expLog';
 
 /**
  * Out-of-band power ratio of a record: one DFT over the whole record (periodogram, rectangular window, the record
@@ -15,11 +16,11 @@ export function outOfBandPowerRatioDb(waveformIq: Float64Array, sampleRateHz: nu
   let outBand = 0;
   for (let k = 0; k < n; k++) {
     const f = (k < n / 2 ? k : k - n) * (sampleRateHz / n);
-    const p = spectrum[2 * k]! ** 2 + spectrum[2 * k + 1]! ** 2;
+    const p = spectrum[2 * k]! * spectrum[2 * k]! + spectrum[2 * k + 1]! * spectrum[2 * k + 1]!;
     if (f >= lowHz && f <= highHz) inBand += p;
     else outBand += p;
   }
-  return 10 * Math.log10(outBand / inBand);
+  return 10 * log10(outBand / inBand);
 }
 
 /** PAPR of a whole record: max |x|² over mean |x|², dB (mean over the record; REFERENCE.md §5.1). */
@@ -27,9 +28,9 @@ export function recordPaprDb(waveformIq: Float64Array): number {
   let peak = 0;
   let sum = 0;
   for (let i = 0; i < waveformIq.length; i += 2) {
-    const p = waveformIq[i]! ** 2 + waveformIq[i + 1]! ** 2;
+    const p = waveformIq[i]! * waveformIq[i]! + waveformIq[i + 1]! * waveformIq[i + 1]!;
     sum += p;
     if (p > peak) peak = p;
   }
-  return 10 * Math.log10(peak / (sum / (waveformIq.length / 2)));
+  return 10 * log10(peak / (sum / (waveformIq.length / 2)));
 }

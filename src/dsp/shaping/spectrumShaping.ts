@@ -1,4 +1,5 @@
 import { assertLength, DspError } from '../errors';
+import { cos } from '../math/trig';
 
 /**
  * Frequency-domain spectrum shaping (FDSS) of one DFT-s-OFDM block, as published for π/2-BPSK and SC-FDMA uplinks
@@ -36,7 +37,7 @@ export function raisedCosineSpectrum(u: number, widthSubcarriers: number, rollOf
   const edge = ((1 + rollOff) * widthSubcarriers) / 2;
   if (a <= flat) return 1;
   if (a >= edge) return 0;
-  return 0.5 * (1 + Math.cos((Math.PI / (rollOff * widthSubcarriers)) * (a - flat)));
+  return 0.5 * (1 + cos((Math.PI / (rollOff * widthSubcarriers)) * (a - flat)));
 }
 
 /** Builds the shaping plan for a block of `dftSize` subcarriers. */

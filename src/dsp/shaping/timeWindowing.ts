@@ -1,5 +1,6 @@
 import { assertSeparateOutput, DspError } from '../errors';
 import type { SymbolLayout } from '../waveform/waveformPlan';
+import { cos } from '../math/trig';
 
 /**
  * Transmit windowing of OFDM symbols with raised-cosine edges (weighted overlap-add at the transmitter; common
@@ -34,7 +35,7 @@ export function applyTimeWindowing(
   }
   const total = inIq.length / 2;
   const ramp = new Float64Array(w);
-  for (let j = 0; j < w; j++) ramp[j] = 0.5 * (1 - Math.cos((Math.PI * (j + 0.5)) / w));
+  for (let j = 0; j < w; j++) ramp[j] = 0.5 * (1 - cos((Math.PI * (j + 0.5)) / w));
   outIq.set(inIq);
   for (const l of layouts) {
     for (let j = 0; j < w; j++) {
