@@ -7,6 +7,7 @@ import { quantisationSnrDb, type QuantisationTally } from './iqCodecs';
 import { datatypeInfo } from './iqDatatypes';
 import { SIDECAR_FORMAT, SIDECAR_VERSION } from './iqSidecar';
 import { buildSigmfMeta, type SigmfAnnotation } from './sigmfMeta';
+import { pow } from '../dsp/math/expLog';
 
 /** Most slot annotations written; beyond it each copy of the record gets one annotation instead. */
 export const MAX_ANNOTATIONS = 100_000;
@@ -220,6 +221,6 @@ function slotAnnotations(plan: ExportPlan): SigmfAnnotation[] {
 }
 
 function round(x: number, digits: number): number {
-  const f = 10 ** digits;
+  const f = pow(10, digits);
   return Math.round(x * f) / f;
 }

@@ -1,5 +1,6 @@
 import { DspError } from '../dsp/errors';
 import { datatypeInfo, type IqDatatype } from './iqDatatypes';
+import { log10 } from '../dsp/math/expLog';
 
 /**
  * What integer quantisation did to a record: clipping and the error it left. Updated chunk by chunk by `encodeIq`.
@@ -110,5 +111,5 @@ export function decodeIq(datatype: IqDatatype, bytes: Uint8Array, out?: Float64A
 
 /** Quantisation SNR in dB from a tally (Infinity when there was no error). */
 export function quantisationSnrDb(tally: QuantisationTally): number {
-  return 10 * Math.log10(tally.signalEnergy / tally.errorEnergy);
+  return 10 * log10(tally.signalEnergy / tally.errorEnergy);
 }

@@ -1,5 +1,6 @@
 import { DspError } from '../errors';
 import { ccdfPoint, type PowerStats } from './powerStats';
+import { pow } from '../math/expLog';
 
 /**
  * How loud a file is written. Full scale (0 dBFS) is a complex sample of magnitude 1 (|x|² = 1), so a sample at
@@ -75,10 +76,10 @@ export function resolveLevel(spec: LevelSpec, stats: PowerStats | undefined): Re
   }
   const meanPower = stats.sumPower / stats.numSamples;
   if (spec.mode === 'rms') {
-    return { mode: 'rms', scaleLinear: Math.sqrt(10 ** (spec.levelDbfs / 10) / meanPower), requestedDbfs: spec.levelDbfs };
+    return { mode: 'rms', scaleLinear: Math.sqrt(pow(10, spec.levelDbfs / 10) / meanPower), requestedDbfs: spec.levelDbfs };
   }
   if (spec.mode === 'peak') {
-    return { mode: 'peak', scaleLinear: Math.sqrt(10 ** (spec.levelDbfs / 10) / stats.maxPower), requestedDbfs: spec.levelDbfs };
+    return { mode: 'peak', scaleLinear: Math.sqrt(pow(10, spec.levelDbfs / 10) / stats.maxPower), requestedDbfs: spec.levelDbfs };
   }
   const probability = spec.probability ?? DEFAULT_AUTO_PROBABILITY;
   const marginDb = spec.marginDb ?? DEFAULT_AUTO_MARGIN_DB;
@@ -86,7 +87,7 @@ export function resolveLevel(spec: LevelSpec, stats: PowerStats | undefined): Re
   const rmsDbfs = -(ccdfLevelDb + marginDb);
   return {
     mode: 'auto',
-    scaleLinear: Math.sqrt(10 ** (rmsDbfs / 10) / meanPower),
+    scaleLinear: Math.sqrt(pow(10, rmsDbfs / 10) / meanPower),
     requestedDbfs: rmsDbfs,
     ccdfLevelDb,
     probability,

@@ -7,6 +7,7 @@
  * empirical form of the CCDF in van Nee & Prasad, OFDM for Wireless Multimedia Communications, 2000, ch. 6 (common
  * practice: reported in dB above the mean power).
  */
+import { log10 } from '../math/expLog';
 export interface PowerStats {
   numSamples: number;
   sumPower: number;
@@ -51,7 +52,7 @@ export function accumulatePowerStats(stats: PowerStats, iq: Float64Array): Power
     const a = Math.abs(re) > Math.abs(im) ? Math.abs(re) : Math.abs(im);
     if (a > maxComp) maxComp = a;
     if (p > 0) {
-      let b = Math.floor((10 * Math.log10(p) - POWER_HISTOGRAM_MIN_DB) * scale);
+      let b = Math.floor((10 * log10(p) - POWER_HISTOGRAM_MIN_DB) * scale);
       if (b < 0) b = 0;
       else if (b >= NUM_BINS) b = NUM_BINS - 1;
       counts[b]!++;
@@ -99,8 +100,8 @@ export const CCDF_PROBABILITIES = [1e-1, 1e-2, 1e-3, 1e-4, 1e-5, 1e-6] as const;
  */
 export function summarisePowerStats(stats: PowerStats, probabilities: readonly number[] = CCDF_PROBABILITIES): PowerSummary {
   const mean = stats.numSamples > 0 ? stats.sumPower / stats.numSamples : 0;
-  const rmsDb = 10 * Math.log10(mean);
-  const peakDb = 10 * Math.log10(stats.maxPower);
+  const rmsDb = 10 * log10(mean);
+  const peakDb = 10 * log10(stats.maxPower);
   return {
     numSamples: stats.numSamples,
     meanPower: mean,
@@ -109,7 +110,7 @@ export function summarisePowerStats(stats: PowerStats, probabilities: readonly n
     peakDb,
     crestFactorDb: peakDb - rmsDb,
     maxComponentAbs: stats.maxComponentAbs,
-    peakComponentDb: 20 * Math.log10(stats.maxComponentAbs),
+    peakComponentDb: 20 * log10(stats.maxComponentAbs),
     ccdf: probabilities.map((p) => ccdfPoint(stats, p)),
   };
 }
@@ -122,8 +123,8 @@ export function summarisePowerStats(stats: PowerStats, probabilities: readonly n
 export function ccdfPoint(stats: PowerStats, probability: number): CcdfPoint {
   const n = stats.numSamples;
   const allowed = probability * n;
-  const meanDb = 10 * Math.log10(stats.sumPower / n);
-  const peakDb = 10 * Math.log10(stats.maxPower);
+  const meanDb = 10 * log10(stats.sumPower / n);
+  const peakDb = 10 * log10(stats.maxPower);
   const counts = stats.counts;
   let above = 0;
   let levelDb = peakDb;

@@ -1,5 +1,6 @@
 import { DspError } from '../errors';
 import { createFftPlan, fftForward, MAX_FFT_SIZE } from '../fft/fftPlan';
+import { log10 } from '../math/expLog';
 
 /** What a lowpass FIR achieves, measured on a dense frequency grid. */
 export interface LowpassMeasurement {
@@ -51,9 +52,9 @@ export function measureLowpass(
     maxStop = Math.max(maxStop, Math.hypot(outIq[2 * b]!, outIq[2 * b + 1]!) / gainLinear);
   }
   return {
-    passbandRippleDb: 20 * Math.log10(maxPass / minPass),
+    passbandRippleDb: 20 * log10(maxPass / minPass),
     passbandDeviation: maxDev,
-    stopbandAttenuationDb: -20 * Math.log10(maxStop),
+    stopbandAttenuationDb: -20 * log10(maxStop),
     gridSize,
   };
 }

@@ -1,4 +1,5 @@
 import { assertLength, DspError } from '../errors';
+import { cos, sin } from '../math/trig';
 
 /**
  * A digital frequency shift y[n] = x[n]·e^{j2π·c·n}, n counted from the first sample of the file.
@@ -69,7 +70,7 @@ export function applyFrequencyShift(shift: FrequencyShift, iq: Float64Array, fir
     let rho = Number((BigInt(k) * BigInt(firstSampleIndex)) % BigInt(p));
     for (let i = 0; i < count; i++) {
       const angle = (twoPi * rho) / p;
-      rotate(iq, outIq, i, Math.cos(angle), Math.sin(angle));
+      rotate(iq, outIq, i, cos(angle), sin(angle));
       rho += k;
       if (rho >= p) rho -= p;
     }
@@ -79,7 +80,7 @@ export function applyFrequencyShift(shift: FrequencyShift, iq: Float64Array, fir
   for (let i = 0; i < count; i++) {
     const cycles = c * (firstSampleIndex + i);
     const angle = twoPi * (cycles - Math.floor(cycles));
-    rotate(iq, outIq, i, Math.cos(angle), Math.sin(angle));
+    rotate(iq, outIq, i, cos(angle), sin(angle));
   }
   return outIq;
 }

@@ -1,4 +1,5 @@
 import { DspError } from '../errors';
+import { log10, pow } from '../math/expLog';
 
 /**
  * Kaiser-window FIR design formulas (J. F. Kaiser, "Nonrecursive digital filter design using the I0-sinh window
@@ -29,7 +30,7 @@ export function besselI0(x: number): number {
  */
 export function kaiserBeta(attenuationDb: number): number {
   if (attenuationDb > 50) return 0.1102 * (attenuationDb - 8.7);
-  if (attenuationDb >= 21) return 0.5842 * (attenuationDb - 21) ** 0.4 + 0.07886 * (attenuationDb - 21);
+  if (attenuationDb >= 21) return 0.5842 * pow(attenuationDb - 21, 0.4) + 0.07886 * (attenuationDb - 21);
   return 0;
 }
 
@@ -66,11 +67,11 @@ export function kaiserWindow(beta: number, out: Float64Array): Float64Array {
 
 /** Passband deviation δp for a peak-to-peak passband ripple Rp dB: 20·log10((1 + δp)/(1 − δp)) = Rp. */
 export function rippleDbToDelta(rippleDb: number): number {
-  const g = 10 ** (rippleDb / 20);
+  const g = pow(10, rippleDb / 20);
   return (g - 1) / (g + 1);
 }
 
 /** Peak-to-peak ripple in dB for a passband deviation δp (the inverse of rippleDbToDelta). */
 export function deltaToRippleDb(delta: number): number {
-  return 20 * Math.log10((1 + delta) / (1 - delta));
+  return 20 * log10((1 + delta) / (1 - delta));
 }

@@ -2,6 +2,8 @@ import { DspError } from '../errors';
 import { measureLowpass, type LowpassMeasurement } from './filterResponse';
 import { kaiserBeta, kaiserOrder, kaiserWindow, rippleDbToDelta } from './kaiserWindow';
 import { findRateRatio } from './rationalRatio';
+import { log10, pow } from '../math/expLog';
+import { sin } from '../math/trig';
 
 /** Default peak-to-peak passband ripple of the resampling filter, dB. */
 export const DEFAULT_PASSBAND_RIPPLE_DB = 0.01;
@@ -81,8 +83,8 @@ export function designResampler(spec: ResamplerSpec): ResamplerDesign {
   const protoRateHz = spec.inputRateHz * up;
   const wp = (2 * Math.PI * passHz) / protoRateHz;
   const ws = (2 * Math.PI * stopHz) / protoRateHz;
-  const delta = Math.min(rippleDbToDelta(rippleDb), 10 ** (-attenuationDb / 20));
-  const a = -20 * Math.log10(delta);
+  const delta = Math.min(rippleDbToDelta(rippleDb), pow(10, -attenuationDb / 20));
+  const a = -20 * log10(delta);
   const beta = kaiserBeta(a);
   let numTaps = kaiserOrder(a, ws - wp) + 1;
   if (numTaps % 2 === 0) numTaps++;
@@ -137,7 +139,7 @@ function kaiserLowpass(numTaps: number, cutoffRad: number, beta: number, gain: n
   const fc = cutoffRad / Math.PI;
   for (let n = 0; n < numTaps; n++) {
     const x = fc * (n - d);
-    const sinc = x === 0 ? 1 : Math.sin(Math.PI * x) / (Math.PI * x);
+    const sinc = x === 0 ? 1 : sin(Math.PI * x) / (Math.PI * x);
     taps[n] = taps[n]! * gain * fc * sinc;
   }
   return taps;
