@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createRappModel } from '../../../src/dsp/amplifier/rapp';
+import { createRappModel, powerOfTwoExponent } from '../../../src/dsp/amplifier/rapp';
 import { createSoftLimiterModel } from '../../../src/dsp/amplifier/softLimiter';
 import { DspError } from '../../../src/dsp/errors';
 
@@ -16,6 +16,20 @@ describe('Rapp model (Rapp 1991; A_sat refers to the output)', () => {
       const gainDb = 20 * Math.log10(model.amAm(0.8) / 0.8);
       expect(gainDb).toBeCloseTo(-dropDb, 3);
       expect(Math.abs(gainDb + (10 * Math.log10(2)) / p)).toBeLessThan(toleranceDb);
+    }
+  });
+
+  it('computes 2p = 2^k (p = 0.5, 1, 2, 4) by squarings and square roots, equal to the formula with Math.pow', () => {
+    // Rapp 1991: A(r) = G·r / [1 + (G·r/A_sat)^{2p}]^{1/(2p)}; the reference here uses the platform's Math.pow.
+    expect([1, 2, 4, 8, 3, 2.5, 0.5].map(powerOfTwoExponent)).toEqual([0, 1, 2, 3, null, null, null]);
+    for (const p of [0.5, 1, 2, 4]) {
+      const model = createRappModel({ smoothness: p, outputSaturationAmplitude: 0.8, gainDb: 3 });
+      const g = 10 ** (3 / 20);
+      for (const r of [1e-6, 0.01, 0.2, 0.5, 0.8, 1, 3, 1e3, 1e200]) {
+        const reference = (g * r) / Math.pow(1 + Math.pow((g * r) / 0.8, 2 * p), 1 / (2 * p));
+        const expected = Number.isFinite(reference) && reference > 0 ? reference : 0.8;
+        expect(Math.abs(model.amAm(r) - expected) / expected, `p = ${p}, r = ${r}`).toBeLessThan(1e-14);
+      }
     }
   });
 
