@@ -1,7 +1,6 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { DspError } from '../dsp/errors';
-import { createIqDataReader, describeBareRawSource, describeSigmfSource, type IqSource } from '../io/importIq';
-import { MAX_META_BYTES } from '../io/sigmfMeta';
+import { createIqDataReader, describeBareRawSource, type IqSource } from '../io/importIq';
 import { hasSigmfSuffix, regularFileSizeBytes, sigmfPathsOf } from './iqFileAccess';
 import { createNodeSha512 } from './nodeHash';
 import { bareRawDatatype, readIqFile } from './readIqFile';
@@ -35,14 +34,16 @@ export function readRecording(path: string, fallbackRateHz: number, options: Rec
     return { iq: result.iq!, source, warnings: result.warnings };
   }
   const metaPath = pair.metaPath;
+  // A SigMF pair is read as inspect reads it; only a data file without its metadata needs the fallbacks below.
+  if (existsSync(metaPath)) {
+    const { source, result } = readIqFile(metaPath, { keepSamples: true });
+    return { iq: result.iq!, source, warnings: result.warnings };
+  }
   const dataPath = existsSync(pair.dataPath) ? pair.dataPath : path;
   const size = fileSize(dataPath);
   const warnings: string[] = [];
   let source: IqSource;
-  if (existsSync(metaPath)) {
-    if (fileSize(metaPath) > MAX_META_BYTES) throw new DspError('INVALID_FILE', `${metaPath}: more than ${MAX_META_BYTES} bytes of metadata.`);
-    source = describeSigmfSource(readFileSync(metaPath, 'utf8'), metaPath, dataPath, size);
-  } else if (options.rawFormat !== undefined) {
+  if (options.rawFormat !== undefined) {
     source = describeBareRawSource(bareRawDatatype(options.rawFormat, options.rateHz), options.rateHz!, dataPath, size);
   } else if (!Number.isFinite(fallbackRateHz)) {
     throw new DspError('INVALID_FILE', `No ${metaPath} found beside ${dataPath}: give --config (then it is read as cf32_le at the configuration's rate), or --raw-format and --rate.`, {
