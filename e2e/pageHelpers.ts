@@ -36,6 +36,17 @@ export function plotCaption(plot: Locator): Locator {
   return plot.locator('xpath=..').locator('.plot-caption');
 }
 
+/** Pixels with any ink on a canvas-drawn plot's canvas layer (src/ui/plots/canvasLayer.ts), and all of its pixels. */
+export async function canvasInk(plot: Locator): Promise<{ inked: number; total: number }> {
+  return plot.evaluate((element) => {
+    const canvas = element.querySelector('canvas.plot-canvas-layer') as HTMLCanvasElement;
+    const pixels = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
+    let inked = 0;
+    for (let i = 3; i < pixels.length; i += 4) if (pixels[i]! > 0) inked += 1;
+    return { inked, total: pixels.length / 4 };
+  });
+}
+
 /** The value cell of a metric in the measurements panel. */
 export function metricValue(page: Page, id: string): Locator {
   return page.locator(`[data-metric="${id}"] [data-value]`);

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { metricValue, openSection, plotCaption, renderCount, shootPanel, traceNames, waitForPlot, watchPage } from './pageHelpers';
+import { canvasInk, metricValue, openSection, plotCaption, renderCount, shootPanel, traceNames, waitForPlot, watchPage } from './pageHelpers';
 
 // The workbench in Debian chromium: the demo opens with both pinned scenarios, every panel draws from the worker pool,
 // edits reach the plots and measurements, bad values stop at their field, and the page keeps to its own origin and a
@@ -134,18 +134,14 @@ test('follows waveform and modulation changes in the plots and the measurements'
     const gd = element as HTMLElement & { figureData?: { name: string; x: number[]; y: number[] }[]; _fullLayout?: { xaxis: Axis; yaxis: Axis } };
     const trace = gd.figureData!.find((t) => t.name === 'peak')!;
     const { xaxis: xa, yaxis: ya } = gd._fullLayout!;
-    const canvas = gd.querySelector('canvas.plot-canvas-layer') as HTMLCanvasElement;
-    const pixels = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
-    let inked = 0;
-    for (let i = 3; i < pixels.length; i += 4) if (pixels[i]! > 0) inked += 1;
     return {
       x: xa._offset + ((trace.x[0]! - xa.range[0]) / (xa.range[1] - xa.range[0])) * xa._length,
       y: ya._offset + (1 - (trace.y[0]! - ya.range[0]) / (ya.range[1] - ya.range[0])) * ya._length,
-      inkedFraction: inked / (pixels.length / 4),
       magnitude: trace.y[0]!,
     };
   });
-  expect(peak.inkedFraction).toBeGreaterThan(0.05);
+  const ink = await canvasInk(timePlot);
+  expect(ink.inked / ink.total).toBeGreaterThan(0.05);
   const box = (await timePlot.boundingBox())!;
   await page.mouse.move(box.x + peak.x + 1, box.y + peak.y + 1);
   const readout = timePlot.locator('xpath=..').locator('.plot-readout');
@@ -155,14 +151,7 @@ test('follows waveform and modulation changes in the plots and the measurements'
   await expect(readout).toBeHidden();
 
   // A legend click hides a canvas-drawn curve (Plotly keeps the choice; the canvas redraws without it).
-  const inked = () =>
-    timePlot.evaluate((element) => {
-      const canvas = element.querySelector('canvas.plot-canvas-layer') as HTMLCanvasElement;
-      const pixels = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
-      let count = 0;
-      for (let i = 3; i < pixels.length; i += 4) if (pixels[i]! > 0) count += 1;
-      return count;
-    });
+  const inked = async () => (await canvasInk(timePlot)).inked;
   const inkedBefore = await inked();
   const magnitudeEntry = timePlot.locator('g.traces').filter({ has: page.locator('.legendtext', { hasText: /^\|x\|$/ }) }).locator('.legendtoggle');
   await magnitudeEntry.click();
