@@ -30,6 +30,25 @@ export interface OfdmPlan {
   readonly symbolPhaseRad: Float64Array;
 }
 
+const rampCache = new Map<string, Float64Array>();
+const RAMP_CACHE_ENTRIES = 16;
+
+/** e^{jπ(m − cp)/N}, m = 0 … cp + N − 1, interleaved re, im; cached per (N, cp). Callers must not write to it. */
+function halfShiftRamp(ifftSize: number, cp: number): Float64Array {
+  const key = `${ifftSize}:${cp}`;
+  const hit = rampCache.get(key);
+  if (hit !== undefined) return hit;
+  const ramp = new Float64Array(2 * (cp + ifftSize));
+  for (let n = 0; n < cp + ifftSize; n++) {
+    const angle = (Math.PI * (n - cp)) / ifftSize;
+    ramp[2 * n] = cos(angle);
+    ramp[2 * n + 1] = sin(angle);
+  }
+  if (rampCache.size >= RAMP_CACHE_ENTRIES) rampCache.clear();
+  rampCache.set(key, ramp);
+  return ramp;
+}
+
 /**
  * Precomputes the synthesis of `numerology` at `oversampling`: IFFT size N·os, CP lengths at the output rate,
  * bin of each grid subcarrier, the LTE uplink ramps and the NR §5.4 phases (formulas on OfdmPlan above).
@@ -39,17 +58,14 @@ export interface OfdmPlan {
 export function createOfdmPlan(numerology: Numerology, oversampling: number, carrierFrequencyHz?: number): OfdmPlan {
   const ifftSize = numerology.fftSize * oversampling;
   const cpLengthsSamples = numerology.cpPatternSamples.map((c) => c * oversampling);
-  const rampsIq = numerology.halfSubcarrierShift
-    ? cpLengthsSamples.map((cp) => {
-        const ramp = new Float64Array(2 * (cp + ifftSize));
-        for (let n = 0; n < cp + ifftSize; n++) {
-          const angle = (Math.PI * (n - cp)) / ifftSize;
-          ramp[2 * n] = cos(angle);
-          ramp[2 * n + 1] = sin(angle);
-        }
-        return ramp;
-      })
-    : [];
+  let rampsIq: Float64Array[] = [];
+  if (numerology.halfSubcarrierShift) {
+    // e^{jπ(n − cp)/N} for n = 0 … cp + N − 1 is, for every cp, a tail of the ramp of the longest CP (same integer
+    // n − cp, so the same bits): one ramp per (N, longest CP), cached, and views of it.
+    const longestCp = Math.max(...cpLengthsSamples);
+    const full = halfShiftRamp(ifftSize, longestCp);
+    rampsIq = cpLengthsSamples.map((cp) => full.subarray(2 * (longestCp - cp)));
+  }
   let symbolPhaseRad = new Float64Array(0);
   if (numerology.standard === 'nr' && carrierFrequencyHz !== undefined) {
     const sampleRateHz = numerology.sampleRateHz * oversampling;
